@@ -1,0 +1,6 @@
+namespace MpptArena.Cli;
+
+internal static class Program
+{
+    public static int Main(string[] args) => 0;
+}

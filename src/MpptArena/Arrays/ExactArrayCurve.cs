@@ -1,0 +1,63 @@
+namespace MpptArena.Arrays;
+
+/// <summary>
+/// The array characteristic solved exactly at every call: for each string, the current at which the
+/// series sum of substring voltages equals the terminal voltage; the array current is the sum over
+/// parallel strings (Kirchhoff's current law). Identical strings are solved once.
+/// </summary>
+public sealed class ExactArrayCurve : IArrayCurve
+{
+    private readonly StringModel[] _strings;
+    private readonly int[] _stringCount;
+
+    /// <summary>A curve from distinct strings and how many of each are in parallel.</summary>
+    /// <param name="strings">Distinct strings.</param>
+    /// <param name="stringCount">How many of each are in parallel [-].</param>
+    public ExactArrayCurve(StringModel[] strings, int[] stringCount)
+    {
+        _strings = strings;
+        _stringCount = stringCount;
+        OpenCircuitVoltageV = FindOpenCircuitVoltage();
+    }
+
+    /// <summary>Distinct strings.</summary>
+    public IReadOnlyList<StringModel> Strings => _strings;
+
+    /// <summary>How many of each distinct string are in parallel.</summary>
+    public IReadOnlyList<int> StringCounts => _stringCount;
+
+    /// <inheritdoc/>
+    public double OpenCircuitVoltageV { get; }
+
+    /// <inheritdoc/>
+    public double CurrentAtVoltage(double voltageV)
+    {
+        double sum = 0;
+        for (int s = 0; s < _strings.Length; s++) sum += _stringCount[s] * _strings[s].CurrentAtVoltage(voltageV);
+        return sum;
+    }
+
+    /// <summary>Array short-circuit current [A].</summary>
+    public double ShortCircuitCurrentA => CurrentAtVoltage(0.0);
+
+    private double FindOpenCircuitVoltage()
+    {
+        // Strings in parallel: the array is at open circuit where the summed current is zero.
+        // Bracket between the lowest and highest string open-circuit voltage and bisect.
+        double lo = double.PositiveInfinity, hi = 0;
+        foreach (var s in _strings)
+        {
+            double v = s.VoltageAtCurrent(0.0, out _);
+            lo = Math.Min(lo, v);
+            hi = Math.Max(hi, v);
+        }
+        if (hi <= 0) return 0;
+        if (hi - lo < 1e-12) return hi;
+        for (int i = 0; i < 200 && hi - lo > 1e-12 * hi; i++)
+        {
+            double mid = 0.5 * (lo + hi);
+            if (CurrentAtVoltage(mid) > 0) lo = mid; else hi = mid;
+        }
+        return 0.5 * (lo + hi);
+    }
+}

@@ -1,0 +1,105 @@
+namespace MpptArena.Arrays;
+
+/// <summary>
+/// Series substrings of one string at one instant, with identical substrings solved once, and an
+/// optional blocking diode. All carry the string current; the string voltage is the sum of the
+/// substring voltages less the blocking diode's drop (Kirchhoff's voltage law).
+/// </summary>
+public sealed class StringModel
+{
+    private readonly SubstringModel[] _distinct;
+    private readonly int[] _count;
+    private readonly double _blockingSaturationA;
+    private readonly double _blockingIdealityV;
+    private readonly double _maxShortCircuitA;
+
+    /// <summary>A string from its distinct substrings and how many of each it holds.</summary>
+    /// <param name="distinct">Distinct substring models.</param>
+    /// <param name="count">How many substrings of each kind are in series [-].</param>
+    /// <param name="blockingSaturationA">Blocking diode saturation current [A]; zero for no blocking diode.</param>
+    /// <param name="blockingIdealityV">Blocking diode n Vt [V].</param>
+    public StringModel(SubstringModel[] distinct, int[] count, double blockingSaturationA = 0, double blockingIdealityV = 0)
+    {
+        _distinct = distinct;
+        _count = count;
+        _blockingSaturationA = blockingSaturationA;
+        _blockingIdealityV = blockingIdealityV;
+        foreach (var s in distinct)
+        {
+            _maxShortCircuitA = Math.Max(_maxShortCircuitA, Pv.SingleDiodeModel.CurrentAtVoltage(s.Cells, 0.0));
+        }
+    }
+
+    /// <summary>Distinct substring models.</summary>
+    public IReadOnlyList<SubstringModel> DistinctSubstrings => _distinct;
+
+    /// <summary>How many of each distinct substring the string holds.</summary>
+    public IReadOnlyList<int> Counts => _count;
+
+    /// <summary>Largest short-circuit current of any substring [A].</summary>
+    public double MaxShortCircuitCurrentA => _maxShortCircuitA;
+
+    /// <summary>True when a blocking diode is in series.</summary>
+    public bool HasBlockingDiode => _blockingSaturationA > 0;
+
+    /// <summary>String terminal voltage [V] at string current [A], and dV/dI [V/A].</summary>
+    public double VoltageAtCurrent(double currentA, out double slopeVPerA)
+    {
+        double v = 0, dv = 0;
+        for (int k = 0; k < _distinct.Length; k++)
+        {
+            v += _count[k] * _distinct[k].VoltageAtCurrent(currentA, out double s);
+            dv += _count[k] * s;
+        }
+        if (HasBlockingDiode)
+        {
+            double x = currentA / _blockingSaturationA + 1.0;
+            if (x <= 0)
+            {
+                slopeVPerA = double.NegativeInfinity;
+                return double.PositiveInfinity;
+            }
+            v -= _blockingIdealityV * Math.Log(x);
+            dv -= _blockingIdealityV / (currentA + _blockingSaturationA);
+        }
+        slopeVPerA = dv;
+        return v;
+    }
+
+    /// <summary>String current [A] at string terminal voltage [V], by safeguarded Newton iteration in I.</summary>
+    public double CurrentAtVoltage(double voltageV)
+    {
+        double hi = _maxShortCircuitA * 1.05 + 1e-3;
+        double step = Math.Max(_maxShortCircuitA, 1e-3);
+        while (VoltageAtCurrent(hi, out _) > voltageV) { hi += step; step *= 2; }
+        double lo = 0.0;
+        if (VoltageAtCurrent(lo, out _) < voltageV)
+        {
+            if (HasBlockingDiode)
+            {
+                double f = 0.5;
+                lo = -_blockingSaturationA * f;
+                while (VoltageAtCurrent(lo, out _) < voltageV && f < 1.0 - 1e-15) { f = 0.5 * (1.0 + f); lo = -_blockingSaturationA * f; }
+                if (VoltageAtCurrent(lo, out _) < voltageV) return lo;
+            }
+            else
+            {
+                double d = Math.Max(_maxShortCircuitA * 0.05, 1e-3);
+                lo = -d;
+                while (VoltageAtCurrent(lo, out _) < voltageV) { d *= 2; lo = -d; }
+            }
+        }
+        // V(I) decreases with I: the root lies in [lo, hi].
+        double i = 0.5 * (lo + hi);
+        for (int iteration = 0; iteration < 100; iteration++)
+        {
+            double f = VoltageAtCurrent(i, out double slope) - voltageV;
+            if (f > 0) lo = i; else hi = i;
+            double next = i - f / slope;
+            if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+            if (Math.Abs(next - i) <= 1e-13 * (1.0 + Math.Abs(i)) || hi - lo <= 1e-14 * (1.0 + Math.Abs(i))) return next;
+            i = next;
+        }
+        return i;
+    }
+}

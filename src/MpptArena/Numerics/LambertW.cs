@@ -1,0 +1,97 @@
+namespace MpptArena.Numerics;
+
+/// <summary>The principal branch W0 of the Lambert W function and the Wright omega function.</summary>
+/// <remarks>
+/// W is the inverse of w e^w (R. M. Corless, G. H. Gonnet, D. E. G. Hare, D. J. Jeffrey, D. E. Knuth,
+/// "On the Lambert W function", Adv. Comput. Math. 5 (1996) 329-359). The Wright omega function
+/// omega(z) = W(e^z) solves w + ln w = z and lets the single-diode model be evaluated where e^z
+/// overflows a double (P. W. Lawrence, R. M. Corless, D. J. Jeffrey, "Algorithm 917: Complex
+/// double-precision evaluation of the Wright omega function", ACM TOMS 38(3), 2012). Both are refined
+/// with Halley's method from the series starting points given by Corless et al. (1996), sec. 4.
+/// </remarks>
+public static class LambertW
+{
+    private const double InverseE = 0.36787944117144233;
+    private const int MaxIterations = 64;
+
+    /// <summary>Principal branch W0(x) for x &gt;= -1/e.</summary>
+    /// <param name="x">Argument [-].</param>
+    /// <returns>W0(x), or NaN for x &lt; -1/e or NaN input.</returns>
+    public static double W0(double x)
+    {
+        if (double.IsNaN(x) || x < -InverseE) return double.NaN;
+        if (x == 0.0) return 0.0;
+        if (double.IsPositiveInfinity(x)) return double.PositiveInfinity;
+        if (x == -InverseE) return -1.0;
+        if (x > 1e300) return WrightOmega(Math.Log(x));
+
+        double w;
+        if (x < -0.3)
+        {
+            // Branch-point series (Corless et al. 1996, eq. 4.22): p = sqrt(2(e x + 1)).
+            double p = Math.Sqrt(2.0 * (Math.E * x + 1.0));
+            w = -1.0 + p - p * p / 3.0 + 11.0 / 72.0 * p * p * p;
+        }
+        else if (x < 3.0)
+        {
+            w = Math.Log(1.0 + x) * (1.0 - Math.Log(1.0 + Math.Log(1.0 + x)) / (2.0 + Math.Log(1.0 + x)));
+        }
+        else
+        {
+            // Asymptotic series (Corless et al. 1996, eq. 4.19).
+            double l1 = Math.Log(x), l2 = Math.Log(l1);
+            w = l1 - l2 + l2 / l1;
+        }
+        return HalleyOnProduct(x, w);
+    }
+
+    /// <summary>Wright omega function omega(z) = W0(e^z), the real solution of w + ln w = z.</summary>
+    /// <param name="z">Argument [-], any real number.</param>
+    /// <returns>omega(z) &gt; 0; underflows to e^z for very negative z.</returns>
+    public static double WrightOmega(double z)
+    {
+        if (double.IsNaN(z)) return double.NaN;
+        if (double.IsPositiveInfinity(z)) return double.PositiveInfinity;
+        if (z < -30.0)
+        {
+            // omega = e^z (1 - e^z + ...): the correction is below double precision here.
+            double e = Math.Exp(z);
+            return e * (1.0 - e);
+        }
+        if (z < 2.0) return W0(Math.Exp(z));
+
+        // Large argument: omega ~ z - ln z + ln z / z (Lawrence, Corless, Jeffrey 2012, sec. 3).
+        double lz = Math.Log(z);
+        double w = z - lz + lz / z;
+        for (int i = 0; i < MaxIterations; i++)
+        {
+            // Halley's method on f(w) = w + ln w - z: f' = 1 + 1/w, f'' = -1/w^2.
+            double f = w + Math.Log(w) - z;
+            double d1 = 1.0 + 1.0 / w;
+            double d2 = -1.0 / (w * w);
+            double step = f / (d1 - 0.5 * f * d2 / d1);
+            double next = w - step;
+            if (next <= 0) next = 0.5 * w;
+            if (Math.Abs(next - w) <= 4e-16 * Math.Abs(next)) return next;
+            w = next;
+        }
+        return w;
+    }
+
+    /// <summary>Halley's method on f(w) = w e^w - x (Corless et al. 1996, eq. 5.9).</summary>
+    private static double HalleyOnProduct(double x, double w)
+    {
+        for (int i = 0; i < MaxIterations; i++)
+        {
+            double ew = Math.Exp(w);
+            double f = w * ew - x;
+            double wp1 = w + 1.0;
+            if (wp1 == 0.0) return w;
+            double denominator = ew * wp1 - (w + 2.0) * f / (2.0 * wp1);
+            double next = w - f / denominator;
+            if (Math.Abs(next - w) <= 4e-16 * (1.0 + Math.Abs(next))) return next;
+            w = next;
+        }
+        return w;
+    }
+}
