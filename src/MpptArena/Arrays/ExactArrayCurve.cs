@@ -52,12 +52,7 @@ public sealed class ExactArrayCurve : IArrayCurve
             hi = Math.Max(hi, v);
         }
         if (hi <= 0) return 0;
-        if (hi - lo < 1e-12) return hi;
-        for (int i = 0; i < 200 && hi - lo > 1e-12 * hi; i++)
-        {
-            double mid = 0.5 * (lo + hi);
-            if (CurrentAtVoltage(mid) > 0) lo = mid; else hi = mid;
-        }
-        return 0.5 * (lo + hi);
+        if (_strings.Length == 1 || hi - lo < 1e-12) return hi;
+        return MathNet.Numerics.RootFinding.Brent.FindRoot(CurrentAtVoltage, lo, hi, 1e-10 * hi, 200);
     }
 }

@@ -1,3 +1,5 @@
+using MpptArena.Numerics;
+
 namespace MpptArena.Arrays;
 
 /// <summary>
@@ -26,7 +28,7 @@ public sealed class StringModel
         _blockingIdealityV = blockingIdealityV;
         foreach (var s in distinct)
         {
-            _maxShortCircuitA = Math.Max(_maxShortCircuitA, Pv.SingleDiodeModel.CurrentAtVoltage(s.Cells, 0.0));
+            _maxShortCircuitA = Math.Max(_maxShortCircuitA, s.ShortCircuitCurrentA);
         }
     }
 
@@ -77,9 +79,9 @@ public sealed class StringModel
         {
             if (HasBlockingDiode)
             {
-                double f = 0.5;
-                lo = -_blockingSaturationA * f;
-                while (VoltageAtCurrent(lo, out _) < voltageV && f < 1.0 - 1e-15) { f = 0.5 * (1.0 + f); lo = -_blockingSaturationA * f; }
+                double fraction = 0.5;
+                lo = -_blockingSaturationA * fraction;
+                while (VoltageAtCurrent(lo, out _) < voltageV && fraction < 1.0 - 1e-15) { fraction = 0.5 * (1.0 + fraction); lo = -_blockingSaturationA * fraction; }
                 if (VoltageAtCurrent(lo, out _) < voltageV) return lo;
             }
             else
@@ -90,16 +92,12 @@ public sealed class StringModel
             }
         }
         // V(I) decreases with I: the root lies in [lo, hi].
-        double i = 0.5 * (lo + hi);
-        for (int iteration = 0; iteration < 100; iteration++)
-        {
-            double f = VoltageAtCurrent(i, out double slope) - voltageV;
-            if (f > 0) lo = i; else hi = i;
-            double next = i - f / slope;
-            if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-            if (Math.Abs(next - i) <= 1e-13 * (1.0 + Math.Abs(i)) || hi - lo <= 1e-14 * (1.0 + Math.Abs(i))) return next;
-            i = next;
-        }
-        return i;
+        var mismatch = new VoltageMismatch(this, voltageV);
+        return SafeguardedNewton.FindRoot(ref mismatch, lo, hi, 0.5 * (lo + hi), 1e-13 * (1.0 + hi - lo), out _);
+    }
+
+    private readonly struct VoltageMismatch(StringModel s, double voltageV) : IFunctionWithSlope
+    {
+        public double Evaluate(double currentA, out double slope) => s.VoltageAtCurrent(currentA, out slope) - voltageV;
     }
 }

@@ -1,3 +1,4 @@
+using MpptArena.Numerics;
 using MpptArena.Pv;
 
 namespace MpptArena.Arrays;
@@ -15,6 +16,9 @@ public readonly record struct SubstringModel(
     double BypassSaturationCurrentA,
     double BypassIdealityVoltageV)
 {
+    /// <summary>Short-circuit current of the cells [A] (the current at which the bypass diode takes over).</summary>
+    public double ShortCircuitCurrentA { get; } = SingleDiodeModel.CurrentAtVoltage(Cells, 0.0);
+
     /// <summary>Current [A] through the substring and its diode at substring voltage <paramref name="voltageV"/> [V].</summary>
     public double CurrentAtVoltage(double voltageV) =>
         SingleDiodeModel.CurrentAtVoltage(Cells, voltageV) + BypassCurrent(voltageV);
@@ -31,7 +35,7 @@ public readonly record struct SubstringModel(
     /// </remarks>
     public double VoltageAtCurrent(double currentA, out double slopeVPerA)
     {
-        double isc = SingleDiodeModel.CurrentAtVoltage(Cells, 0.0);
+        double isc = ShortCircuitCurrentA;
         double lo, hi, v;
         if (currentA <= isc)
         {
@@ -45,24 +49,24 @@ public readonly record struct SubstringModel(
             hi = 0.0;
             v = lo;
         }
-        double slope = -1.0;
-        for (int i = 0; i < 60; i++)
-        {
-            double ic = SingleDiodeModel.CurrentAtVoltage(Cells, v);
-            double f = ic + BypassCurrent(v) - currentA;
-            slope = SingleDiodeModel.SlopeAtPoint(Cells, v, ic)
-                    - BypassSaturationCurrentA / BypassIdealityVoltageV * Math.Exp(Math.Min(-v / BypassIdealityVoltageV, 700.0));
-            if (f > 0) lo = v; else hi = v;
-            double next = v - f / slope;
-            if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
-            if (Math.Abs(next - v) <= 1e-13 * (1.0 + Math.Abs(v)) || hi - lo <= 1e-14 * (1.0 + Math.Abs(v)))
-            {
-                v = next;
-                break;
-            }
-            v = next;
-        }
+        var f = new CurrentMismatch(this, currentA);
+        v = SafeguardedNewton.FindRoot(ref f, lo, hi, v, 1e-12 * (1.0 + Math.Abs(hi - lo)), out double slope);
         slopeVPerA = 1.0 / slope;
         return v;
+    }
+
+    /// <summary>Slope of the substring's total current with voltage, dI/dV [A/V], at voltage [V].</summary>
+    public double SlopeAtVoltage(double voltageV, double cellCurrentA) =>
+        SingleDiodeModel.SlopeAtPoint(Cells, voltageV, cellCurrentA)
+        - BypassSaturationCurrentA / BypassIdealityVoltageV * Math.Exp(Math.Min(-voltageV / BypassIdealityVoltageV, 700.0));
+
+    private readonly struct CurrentMismatch(SubstringModel s, double currentA) : IFunctionWithSlope
+    {
+        public double Evaluate(double voltageV, out double slope)
+        {
+            double ic = SingleDiodeModel.CurrentAtVoltage(s.Cells, voltageV);
+            slope = s.SlopeAtVoltage(voltageV, ic);
+            return ic + s.BypassCurrent(voltageV) - currentA;
+        }
     }
 }

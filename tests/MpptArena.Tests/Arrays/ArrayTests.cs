@@ -1,0 +1,164 @@
+using MathNet.Numerics.Optimization;
+using MpptArena.Arrays;
+
+namespace MpptArena.Tests.Arrays;
+
+public class ArrayTests
+{
+    /// <summary>One string of ten modules, three substrings each; substrings 0-9 at g1, 10-19 at g2, 20-29 at g3.</summary>
+    private static (PvArray Array, ArrayConditions Conditions) ThreeLevelString(double g1, double g2, double g3)
+    {
+        var array = ReferenceModules.Array(10, 1);
+        var c = array.UniformConditions(1000, 25);
+        for (int k = 0; k < 30; k++) c.IrradianceWm2[k] = k < 10 ? g1 : k < 20 ? g2 : g3;
+        return (array, c);
+    }
+
+    [Fact]
+    public void StringVoltageIsTheSumOfSubstringVoltagesAtOneCurrent()
+    {
+        // Kirchhoff's voltage law for series elements.
+        var (array, conditions) = ThreeLevelString(1000, 600, 300);
+        var curve = array.Solve(conditions);
+        var str = curve.Strings[0];
+        foreach (double i in new[] { 0.5, 2.0, 2.9, 5.0, 8.0, 9.3 })
+        {
+            double sum = 0;
+            for (int k = 0; k < 30; k++) sum += array.Substring(conditions.IrradianceWm2[k], 25).VoltageAtCurrent(i, out _);
+            Assert.Equal(sum, str.VoltageAtCurrent(i, out _), 1e-9);
+            Assert.Equal(i, str.CurrentAtVoltage(sum), 1e-9);
+        }
+    }
+
+    [Fact]
+    public void ParallelStringsAddTheirCurrents()
+    {
+        // Kirchhoff's current law for parallel strings.
+        var array = ReferenceModules.Array(4, 2);
+        var c = array.UniformConditions(900, 40);
+        for (int k = 12; k < 18; k++) c.IrradianceWm2[k] = 350; // half of the second string shaded
+        var both = array.Solve(c);
+        var lit = ReferenceModules.Array(4, 1).Solve(ReferenceModules.Array(4, 1).UniformConditions(900, 40));
+        var shaded = ReferenceModules.Array(4, 1);
+        var sc = shaded.UniformConditions(900, 40);
+        for (int k = 0; k < 6; k++) sc.IrradianceWm2[k] = 350;
+        var shadedCurve = shaded.Solve(sc);
+        for (double v = 0; v < 150; v += 7.3)
+        {
+            Assert.Equal(lit.CurrentAtVoltage(v) + shadedCurve.CurrentAtVoltage(v), both.CurrentAtVoltage(v), 1e-9);
+        }
+    }
+
+    [Fact]
+    public void SubstringGoesNegativeOnlyAsFarAsItsBypassDiodeAllows()
+    {
+        // Common practice: a bypassed substring sits at minus one diode drop (0.4-0.5 V for Schottky at module current).
+        var shaded = ReferenceModules.Array(1, 1).Substring(200, 25);
+        double v = shaded.VoltageAtCurrent(9.0, out _);
+        Assert.InRange(v, -0.50, -0.38);
+    }
+
+    [Fact]
+    public void UniformlyLitArrayHasExactlyOneMaximum()
+    {
+        var array = ReferenceModules.Array(10, 2);
+        foreach (double g in new[] { 100.0, 500.0, 1000.0 })
+        {
+            var peaks = MppSearch.FindPeaks(array.Solve(array.UniformConditions(g, 45)));
+            Assert.Single(peaks.Peaks);
+        }
+    }
+
+    [Theory]
+    [InlineData(1000, 600, 300, 3)]
+    [InlineData(1000, 1000, 400, 2)]
+    [InlineData(1000, 250, 250, 2)]
+    public void EachDistinctIrradianceLevelMakesItsOwnPeak(double g1, double g2, double g3, int expectedPeaks)
+    {
+        // Memory: H. Patel, V. Agarwal, IEEE Trans. Industrial Electronics 55(4), 2008: up to one local
+        // maximum per distinct substring irradiance level in a string; with well separated levels, one each.
+        var (array, c) = ThreeLevelString(g1, g2, g3);
+        var curve = array.Solve(c);
+        var peaks = MppSearch.FindPeaks(curve);
+        Assert.Equal(expectedPeaks, peaks.Peaks.Count);
+
+        // Independent check: a 4000-point scan and MathNet's golden-section minimiser around its best point.
+        double voc = curve.OpenCircuitVoltageV;
+        int best = 0; double bestP = 0;
+        for (int i = 0; i <= 4000; i++)
+        {
+            double v = voc * i / 4000;
+            double p = v * curve.CurrentAtVoltage(v);
+            if (p > bestP) { bestP = p; best = i; }
+        }
+        var result = GoldenSectionMinimizer.Minimum(
+            ObjectiveFunction.ScalarValue(v => -v * curve.CurrentAtVoltage(v)),
+            voc * (best - 1) / 4000, voc * (best + 1) / 4000, 1e-9);
+        Assert.Equal(-result.FunctionInfoAtMinimum.Value, peaks.Global.PowerW, peaks.Global.PowerW * 1e-6);
+        Assert.Equal(result.MinimizingPoint, peaks.Global.VoltageV, voc * 1e-3);
+    }
+
+    [Fact]
+    public void ArrayCurrentIsContinuousAndMonotoneFromZeroToVoc()
+    {
+        var (array, c) = ThreeLevelString(1000, 600, 300);
+        var twoStrings = ReferenceModules.Array(10, 2, ReferenceModules.Schottky);
+        var c2 = twoStrings.UniformConditions(800, 30);
+        for (int k = 0; k < 7; k++) c2.IrradianceWm2[k] = 150;
+        foreach (var curve in new[] { array.Solve(c), twoStrings.Solve(c2) })
+        {
+            double voc = curve.OpenCircuitVoltageV;
+            double previous = curve.CurrentAtVoltage(0);
+            const int n = 6000;
+            for (int i = 1; i <= n; i++)
+            {
+                double now = curve.CurrentAtVoltage(voc * i / n);
+                Assert.True(now <= previous + 1e-12, $"rises at {voc * i / n} V");
+                Assert.True(previous - now < 0.05 * curve.CurrentAtVoltage(0), $"jumps at {voc * i / n} V");
+                previous = now;
+            }
+            Assert.Equal(0.0, curve.CurrentAtVoltage(voc), 1e-7 * curve.CurrentAtVoltage(0));
+        }
+    }
+
+    [Theory]
+    [InlineData(0.0, 25.0)]
+    [InlineData(1500.0, 25.0)]
+    [InlineData(800.0, -40.0)]
+    [InlineData(800.0, 85.0)]
+    public void CurveHasNoNaNOrInfinityAtExtremes(double g, double t)
+    {
+        var array = ReferenceModules.Array(10, 2, ReferenceModules.Schottky);
+        var c = array.UniformConditions(g, t);
+        c.IrradianceWm2[3] = g * 0.3;
+        var curve = array.Solve(c);
+        double top = Math.Max(curve.OpenCircuitVoltageV, 10) * 1.2;
+        for (double v = -5; v <= top; v += top / 500)
+        {
+            Assert.True(double.IsFinite(curve.CurrentAtVoltage(v)), $"V = {v}");
+        }
+        var peaks = MppSearch.FindPeaks(curve);
+        Assert.True(double.IsFinite(peaks.Global.PowerW));
+    }
+
+    [Fact]
+    public void PreparedCurveStaysWithin0Point01PercentOfMppPowerOfTheExactSolve()
+    {
+        // Requirement of the plant: interpolation error below 1e-4 of MPP power anywhere on the curve.
+        var array = ReferenceModules.Array(6, 2);
+        var c = array.UniformConditions(1000, 25);
+        var rng = new Random(7);
+        for (int k = 0; k < c.IrradianceWm2.Length; k++) c.IrradianceWm2[k] = 150 + 850 * rng.NextDouble();
+        var exact = array.Solve(c);
+        var prepared = new PreparedArrayCurve(exact);
+        double pmpp = MppSearch.FindPeaks(prepared).Global.PowerW;
+        double voc = exact.OpenCircuitVoltageV;
+        double worst = 0;
+        for (int i = 0; i <= 1500; i++)
+        {
+            double v = voc * i / 1500;
+            worst = Math.Max(worst, Math.Abs(v * (prepared.CurrentAtVoltage(v) - exact.CurrentAtVoltage(v))));
+        }
+        Assert.True(worst / pmpp < 1e-4, $"worst power error {worst / pmpp:E2} of Pmpp");
+    }
+}
