@@ -1,0 +1,57 @@
+namespace MpptArena.Environment;
+
+/// <summary>
+/// A quantity that changes with time as straight lines between breakpoints. Two breakpoints at one
+/// time make a step. Before the first point and after the last the value is held.
+/// </summary>
+public sealed class PiecewiseLinearProfile
+{
+    private readonly double[] _timeS;
+    private readonly double[] _value;
+
+    /// <summary>A profile through the given breakpoints; times must not decrease.</summary>
+    /// <param name="timeS">Breakpoint times [s], non-decreasing.</param>
+    /// <param name="value">Values at the breakpoints [unit of the quantity].</param>
+    public PiecewiseLinearProfile(IReadOnlyList<double> timeS, IReadOnlyList<double> value)
+    {
+        if (timeS.Count == 0 || timeS.Count != value.Count) throw new ArgumentException("a profile needs one or more (time, value) pairs");
+        for (int i = 1; i < timeS.Count; i++)
+        {
+            if (timeS[i] < timeS[i - 1]) throw new ArgumentException($"profile time goes backwards at point {i}");
+        }
+        _timeS = timeS.ToArray();
+        _value = value.ToArray();
+    }
+
+    /// <summary>A constant profile.</summary>
+    /// <param name="value">The value.</param>
+    public static PiecewiseLinearProfile Constant(double value) => new([0.0], [value]);
+
+    /// <summary>Breakpoint times [s].</summary>
+    public IReadOnlyList<double> TimesS => _timeS;
+
+    /// <summary>Breakpoint values.</summary>
+    public IReadOnlyList<double> Values => _value;
+
+    /// <summary>Time of the last breakpoint [s].</summary>
+    public double EndTimeS => _timeS[^1];
+
+    /// <summary>Value at time <paramref name="timeS"/> [s]; at a step the later value.</summary>
+    public double ValueAt(double timeS)
+    {
+        if (timeS < _timeS[0]) return _value[0];
+        if (timeS >= _timeS[^1]) return _value[^1];
+        int j = Array.BinarySearch(_timeS, timeS);
+        if (j >= 0)
+        {
+            while (j + 1 < _timeS.Length && _timeS[j + 1] == timeS) j++;
+            return _value[j];
+        }
+        j = ~j - 1;
+        double t0 = _timeS[j], t1 = _timeS[j + 1];
+        return _value[j] + (_value[j + 1] - _value[j]) * (timeS - t0) / (t1 - t0);
+    }
+
+    /// <summary>Times in [from, to) where the profile has a step or a change of slope [s].</summary>
+    public IEnumerable<double> BreakpointsBetween(double fromS, double toS) => _timeS.Where(t => t >= fromS && t < toS).Distinct();
+}
