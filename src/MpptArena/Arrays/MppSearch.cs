@@ -31,8 +31,7 @@ public static class MppSearch
         if (!(pMax > 0)) return PowerPeaks.None;
 
         var peaks = new List<PowerPeak>();
-        int iStart = 1;
-        for (int i = iStart; i < samples; i++)
+        for (int i = 1; i < samples; i++)
         {
             // A strict rise then a non-rise marks one hill; plateaus collapse to their first sample.
             if (p[i] > p[i - 1] && p[i] >= p[i + 1])
@@ -51,6 +50,12 @@ public static class MppSearch
         }
         int global = 0;
         for (int k = 1; k < peaks.Count; k++) if (peaks[k].PowerW > peaks[global].PowerW) global = k;
-        return new PowerPeaks(peaks, global);
+        var valleys = new List<double>(peaks.Count);
+        for (int k = 0; k + 1 < peaks.Count; k++)
+        {
+            double lo = peaks[k].VoltageV, hi = peaks[k + 1].VoltageV;
+            valleys.Add(GoldenSection.Maximise(x => -x * curve.CurrentAtVoltage(x), lo, hi, voc * 1e-6));
+        }
+        return new PowerPeaks(peaks, global, valleys);
     }
 }

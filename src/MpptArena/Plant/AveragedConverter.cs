@@ -1,0 +1,143 @@
+using MpptArena.Arrays;
+using MpptArena.Trackers;
+
+namespace MpptArena.Plant;
+
+/// <summary>
+/// The parts shared by the averaged switching converters: state (input-capacitor voltage v, inductor
+/// current i), the classical fourth-order Runge-Kutta step with the duty cycle held over the step
+/// (a digital modulator updating once per plant step), the inner control loops, and the energy ledger
+/// integrated as extra states of the same step so the balance closes to the integrator's accuracy.
+/// </summary>
+/// <remarks>
+/// Averaged CCM models after R. W. Erickson, D. Maksimovic, Fundamentals of Power Electronics, 2nd ed.,
+/// Kluwer 2001, ch. 2 and 7. The inductor current is not allowed below zero (the diode blocks): the
+/// model then stays at i = 0 instead of entering the discontinuous mode's averaged equations.
+/// Voltage-reference control is cascaded as in average-current-mode firmware: an outer PI voltage
+/// loop (with feed-forward of the PV current) sets the converter input current; an inner proportional
+/// current loop with duty feed-forward sets the duty cycle. Gains follow from the requested
+/// bandwidths: Kv = 2 pi f_v C, Ki = Kv 2 pi f_v / 4, Kc = 2 pi f_i L. The inner loops see true values
+/// (their analog sensing is much faster than the tracker's ADC path).
+/// </remarks>
+public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
+{
+    /// <summary>Converter parameters.</summary>
+    protected ConverterSettings Settings { get; } = settings;
+
+    private double _v, _i, _duty, _integral, _pvCurrent;
+    private EnergyLedger _energy;
+
+    private double Kv => 2 * Math.PI * Settings.VoltageLoopBandwidthHz * Settings.InputCapacitanceF;
+    private double Ki => Kv * 2 * Math.PI * Settings.VoltageLoopBandwidthHz / 4;
+
+    /// <summary>Current-loop gain Kc [V/A] = 2 pi f_i L.</summary>
+    protected double Kc => 2 * Math.PI * Settings.CurrentLoopBandwidthHz * Settings.InductanceH;
+
+    /// <inheritdoc/>
+    public bool Accepts(TrackerCommandKind kind) => true;
+
+    /// <inheritdoc/>
+    public (double Min, double Max) CommandRange(TrackerCommandKind kind) =>
+        kind == TrackerCommandKind.DutyCycle ? (Settings.MinDuty, Settings.MaxDuty) : (0.0, Settings.MaxVoltageReferenceV);
+
+    /// <inheritdoc/>
+    public void Reset(double voltageV)
+    {
+        _v = voltageV;
+        _i = 0;
+        _integral = 0;
+        _duty = Settings.MinDuty;
+        _energy = default;
+        _pvCurrent = 0;
+    }
+
+    /// <inheritdoc/>
+    public double PvVoltageV => _v;
+
+    /// <inheritdoc/>
+    public double PvCurrentA => _pvCurrent;
+
+    /// <summary>Inductor current [A].</summary>
+    public double InductorCurrentA => _i;
+
+    /// <inheritdoc/>
+    public double DutyCycle => _duty;
+
+    /// <inheritdoc/>
+    public EnergyLedger Energy => _energy;
+
+    /// <inheritdoc/>
+    public double StoredJ => 0.5 * Settings.InputCapacitanceF * _v * _v + 0.5 * Settings.InductanceH * _i * _i;
+
+    /// <inheritdoc/>
+    public double FastestRateEstimatePerS(double maxConductanceS)
+    {
+        double rc = maxConductanceS / Settings.InputCapacitanceF;
+        double lc = 1.0 / Math.Sqrt(Settings.InductanceH * Settings.InputCapacitanceF);
+        double voltageLoop = (Kv + maxConductanceS) / Settings.InputCapacitanceF;
+        double currentLoop = (Kc + Settings.InductorResistanceOhm) / Settings.InductanceH;
+        return Math.Max(Math.Max(rc, lc), Math.Max(voltageLoop, currentLoop));
+    }
+
+    /// <inheritdoc/>
+    public void Step(double dtS, PreparedArrayCurve curve, double command, TrackerCommandKind kind)
+    {
+        double ipv = curve.CurrentAtVoltage(_v);
+        if (kind == TrackerCommandKind.DutyCycle)
+        {
+            _duty = Math.Clamp(command, Settings.MinDuty, Settings.MaxDuty);
+        }
+        else
+        {
+            double error = _v - command;
+            double inputCurrentRef = ipv + Kv * error + Ki * _integral;
+            double duty = DutyForInputCurrent(_v, _i, inputCurrentRef);
+            double clamped = Math.Clamp(duty, Settings.MinDuty, Settings.MaxDuty);
+            // Anti-windup: integrate only while the modulator is not saturated, or when it unwinds.
+            if (clamped == duty || Math.Sign(error) != Math.Sign(_integral)) _integral += error * dtS;
+            _duty = clamped;
+        }
+
+        // Classical RK4 on (v, i, E_pv, E_out, E_loss) with d held.
+        double d = _duty;
+        Derivatives(curve, _v, _i, d, out double k1v, out double k1i, out double p1, out double o1, out double l1);
+        Derivatives(curve, _v + 0.5 * dtS * k1v, _i + 0.5 * dtS * k1i, d, out double k2v, out double k2i, out double p2, out double o2, out double l2);
+        Derivatives(curve, _v + 0.5 * dtS * k2v, _i + 0.5 * dtS * k2i, d, out double k3v, out double k3i, out double p3, out double o3, out double l3);
+        Derivatives(curve, _v + dtS * k3v, _i + dtS * k3i, d, out double k4v, out double k4i, out double p4, out double o4, out double l4);
+        _v += dtS / 6 * (k1v + 2 * k2v + 2 * k3v + k4v);
+        _i += dtS / 6 * (k1i + 2 * k2i + 2 * k3i + k4i);
+        _energy.FromArrayJ += dtS / 6 * (p1 + 2 * p2 + 2 * p3 + p4);
+        _energy.DeliveredJ += dtS / 6 * (o1 + 2 * o2 + 2 * o3 + o4);
+        _energy.LossJ += dtS / 6 * (l1 + 2 * l2 + 2 * l3 + l4);
+        if (_i < 0)
+        {
+            // Diode blocks: the (tiny) inductor energy of the negative excursion is booked as loss.
+            _energy.LossJ += 0.5 * Settings.InductanceH * _i * _i;
+            _i = 0;
+        }
+        _pvCurrent = curve.CurrentAtVoltage(_v);
+    }
+
+    private void Derivatives(PreparedArrayCurve curve, double v, double i, double d,
+        out double dv, out double di, out double pPv, out double pOut, out double pLoss)
+    {
+        double ipv = curve.CurrentAtVoltage(v);
+        double iPos = Math.Max(i, 0.0);
+        StateDerivatives(v, iPos, d, ipv, out dv, out di, out pOut);
+        pPv = v * ipv;
+        pLoss = Settings.InductorResistanceOhm * iPos * iPos;
+    }
+
+    /// <summary>Averaged state equations of the topology.</summary>
+    /// <param name="v">Input-capacitor voltage [V].</param>
+    /// <param name="i">Inductor current [A], not negative.</param>
+    /// <param name="d">Duty cycle [-].</param>
+    /// <param name="ipv">Array current at v [A].</param>
+    /// <param name="dv">dv/dt [V/s].</param>
+    /// <param name="di">di/dt [A/s].</param>
+    /// <param name="pOut">Power delivered at the output [W].</param>
+    protected abstract void StateDerivatives(double v, double i, double d, double ipv, out double dv, out double di, out double pOut);
+
+    /// <summary>Duty cycle that drives the converter's input current toward <paramref name="inputCurrentRefA"/> with the current loop's bandwidth.</summary>
+    protected abstract double DutyForInputCurrent(double v, double i, double inputCurrentRefA);
+}

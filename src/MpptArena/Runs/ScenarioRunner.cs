@@ -1,0 +1,257 @@
+using System.Diagnostics;
+using System.Globalization;
+using System.Security.Cryptography;
+using System.Text;
+using MpptArena.Arrays;
+using MpptArena.Plant;
+using MpptArena.Scenarios;
+using MpptArena.Scoring;
+using MpptArena.Sensing;
+using MpptArena.Trackers;
+
+namespace MpptArena.Runs;
+
+/// <summary>
+/// Runs every tracker of a scenario in lock-step, each against its own copy of the plant, all sharing
+/// one environment and one prepared array curve (they see the same sky).
+/// </summary>
+/// <remarks>
+/// Per plant step h: (1) at every environment step the irradiance, temperature and shading are
+/// evaluated at the step's start and held; the curve is re-prepared when they moved beyond the
+/// thresholds (<see cref="ArrayCurveCache"/>); (2) each front end advances by h (split into equal
+/// sub-steps when h exceeds the integrator's stability limit for the plant's fastest mode);
+/// (3) the scorer takes the step; (4) the ADCs convert where the averaging schedule says; (5) at each
+/// tracker sample instant the tracker is called and its command takes effect from the next step.
+/// </remarks>
+public sealed class ScenarioRunner
+{
+    /// <summary>RK4's stability limit on the negative real axis is h|lambda| &lt; 2.785; this margin is used.</summary>
+    public const double StabilityLimit = 2.0;
+
+    /// <summary>Runs <paramref name="scenario"/>.</summary>
+    /// <param name="scenario">The scenario.</param>
+    /// <param name="sinkFor">Series sink per tracker, or null for none.</param>
+    /// <param name="progress">Receives the finished fraction [0, 1], or null.</param>
+    /// <param name="cancel">Stops the run between steps.</param>
+    public RunResult Run(Scenario scenario, Func<TrackerSpec, ISeriesSink?>? sinkFor = null, IProgress<double>? progress = null, CancellationToken cancel = default)
+    {
+        var wall = Stopwatch.StartNew();
+        var sim = scenario.Simulation;
+        double h = sim.PlantStepS;
+        long totalSteps = (long)Math.Round(sim.DurationS / h);
+        int envEvery = Math.Max(1, (int)Math.Round(sim.EnvironmentStepS / h));
+        var env = scenario.Environment;
+        int substrings = scenario.Array.Layout.SubstringCount;
+        var conditions = new ArrayConditions(substrings);
+        var factors = new double[substrings];
+        var previousFactors = new double[substrings];
+        var cache = new ArrayCurveCache(scenario.Array, sim.ReprepareIrradianceWm2, sim.ReprepareTemperatureC);
+        env.Evaluate(0.0, conditions, factors);
+        Array.Copy(factors, previousFactors, substrings);
+        cache.Update(conditions);
+
+        int substeps = SubstepsFor(scenario, h);
+        double hSub = h / substeps;
+        var lanes = scenario.Trackers.Select((spec, index) => CreateLane(scenario, spec, index, h, sinkFor)).ToList();
+        foreach (var lane in lanes)
+        {
+            lane.FrontEnd.Reset(cache.Curve.OpenCircuitVoltageV);
+            lane.Scorer.MarkEvent(0.0, "start-up");
+            try
+            {
+                double first = lane.Tracker.Reset(lane.Context);
+                string? bad = lane.Validate(first);
+                if (bad is not null) lane.Failure = new TrackerFailure(0, bad);
+                else lane.Command = first;
+            }
+            catch (Exception ex)
+            {
+                lane.Failure = new TrackerFailure(0, $"threw {ex.GetType().Name} in Reset: {ex.Message}");
+            }
+            lane.NextSeriesS = sim.SeriesIntervalS;
+        }
+
+        var snapshots = new List<CurveSnapshot>();
+        var snapshotTimes = scenario.Scoring.SnapshotTimes.OrderBy(t => t).ToList();
+        int nextSnapshot = 0;
+        double lastChangeS = 0, lastTickS = 0;
+        long reportEvery = Math.Max(1, totalSteps / 200);
+
+        for (long n = 1; n <= totalSteps; n++)
+        {
+            double tStart = (n - 1) * h, t = n * h;
+            if ((n - 1) % envEvery == 0 && n > 1)
+            {
+                env.Evaluate(tStart, conditions, factors);
+                string? eventLabel = DetectEvent(scenario, lastTickS, tStart, factors, previousFactors);
+                if (ConditionsChanged(conditions, cache, factors, previousFactors) || eventLabel is not null) lastChangeS = tStart;
+                Array.Copy(factors, previousFactors, substrings);
+                cache.Update(conditions);
+                if (eventLabel is not null)
+                {
+                    foreach (var lane in lanes) if (lane.Failure is null) lane.Scorer.MarkEvent(tStart, eventLabel);
+                }
+                lastTickS = tStart;
+            }
+            while (nextSnapshot < snapshotTimes.Count && snapshotTimes[nextSnapshot] <= tStart + 1e-12)
+            {
+                snapshots.Add(Snapshot(tStart, cache));
+                nextSnapshot++;
+            }
+
+            var curve = cache.Curve;
+            var peaks = cache.Peaks;
+            var mpp = peaks.Global;
+            bool multi = peaks.Peaks.Count > 1;
+            foreach (var lane in lanes)
+            {
+                if (lane.Failure is not null) continue;
+                double e0 = lane.FrontEnd.Energy.FromArrayJ;
+                var kind = lane.Tracker.CommandKind;
+                for (int s = 0; s < substeps; s++) lane.FrontEnd.Step(hSub, curve, lane.Command, kind);
+                double p = (lane.FrontEnd.Energy.FromArrayJ - e0) / h;
+                double v = lane.FrontEnd.PvVoltageV, i = lane.FrontEnd.PvCurrentA;
+                lane.Scorer.Observe(new PlantSample(t, h, v, i, p, mpp.PowerW, mpp.VoltageV, multi, peaks.IsOnGlobalHill(v), t - lastChangeS, lane.Command));
+                if (lane.Sink is not null) WriteSeries(lane, sim.SeriesIntervalS, t, v, i, p, mpp, h);
+
+                int stepInSample = (int)((n - 1) % lane.StepsPerSample);
+                lane.Sensors.OnPlantStep(stepInSample, v, i);
+                if (stepInSample == lane.StepsPerSample - 1)
+                {
+                    var (vc, ic, vs, cs) = lane.Sensors.TakeSample();
+                    lane.Sample(new TrackerMeasurement(t, vs, cs, vc, ic, lane.Command));
+                }
+            }
+            if (n % reportEvery == 0)
+            {
+                cancel.ThrowIfCancellationRequested();
+                progress?.Report((double)n / totalSteps);
+            }
+        }
+
+        double end = totalSteps * h;
+        var results = lanes.Select(lane =>
+        {
+            lane.Sink?.Dispose();
+            var scores = lane.Scorer.Finish(end);
+            double meanNs = lane.Calls > 0 ? lane.ComputeTicks * 1e9 / Stopwatch.Frequency / lane.Calls : 0;
+            return new TrackerResult(lane.Spec.Name, lane.Spec.Descriptor.Kind, lane.Spec.SamplePeriodS, lane.Spec.Settings.All,
+                lane.Failure is null ? scores : null, lane.Failure, lane.Calls, meanNs);
+        }).ToList();
+        progress?.Report(1.0);
+        return new RunResult(scenario.Name, scenario.Description, sim.Seed, PlantDigest(scenario), end, h, results, snapshots,
+            cache.Preparations, wall.Elapsed.TotalSeconds);
+    }
+
+    /// <summary>Sub-steps per plant step so that h |lambda_max| stays within <see cref="StabilityLimit"/>.</summary>
+    public static int SubstepsFor(Scenario scenario, double plantStepS)
+    {
+        var frontEnd = CreateFrontEnd(scenario.Converter);
+        // The array's largest incremental conductance is near and above open circuit, brightest and coldest.
+        var bright = scenario.Array.UniformConditions(1500, -40);
+        var curve = new PreparedArrayCurve(scenario.Array.Solve(bright));
+        curve.CurrentAtVoltage(1.1 * curve.OpenCircuitVoltageV, out double slope);
+        double rate = frontEnd.FastestRateEstimatePerS(Math.Abs(slope));
+        return Math.Max(1, (int)Math.Ceiling(plantStepS * rate / StabilityLimit));
+    }
+
+    /// <summary>The front end a converter description asks for.</summary>
+    public static IFrontEnd CreateFrontEnd(ConverterSettings c) => c.Kind switch
+    {
+        FrontEndKind.IdealSource => new IdealSourceFrontEnd(c),
+        FrontEndKind.Boost => new BoostFrontEnd(c),
+        FrontEndKind.Buck => new BuckFrontEnd(c),
+        _ => throw new ArgumentOutOfRangeException(nameof(c)),
+    };
+
+    private static TrackerLane CreateLane(Scenario scenario, TrackerSpec spec, int index, double h, Func<TrackerSpec, ISeriesSink?>? sinkFor)
+    {
+        var frontEnd = CreateFrontEnd(scenario.Converter);
+        var tracker = spec.Descriptor.Create(spec.Settings);
+        var kind = tracker.CommandKind;
+        if (!frontEnd.Accepts(kind))
+        {
+            throw new ArenaInputException($"tracker '{spec.Name}' commands a {kind}, which the {scenario.Converter.Kind} front end does not accept; use a boost or buck converter", "converter");
+        }
+        var (min, max) = frontEnd.CommandRange(kind);
+        int stepsPerSample = Math.Max(1, (int)Math.Round(spec.SamplePeriodS / h));
+        var sensors = scenario.Sensors;
+        var context = new TrackerContext(stepsPerSample * h, min, max, scenario.NominalOpenCircuitVoltageV, scenario.NominalShortCircuitCurrentA,
+            sensors.Voltage.LeastSignificantBit, sensors.Current.LeastSignificantBit, sensors.Voltage.Bits, sensors.Current.Bits);
+        // Each tracker gets the same noise stream: differences between trackers are theirs, not the dice's.
+        var chain = new SensorChain(sensors, stepsPerSample, h, scenario.Simulation.Seed);
+        return new TrackerLane
+        {
+            Spec = spec,
+            Tracker = tracker,
+            FrontEnd = frontEnd,
+            Sensors = chain,
+            Scorer = new TrackerScorer(scenario.Scoring),
+            Context = context,
+            StepsPerSample = stepsPerSample,
+            Sink = sinkFor?.Invoke(spec),
+        };
+    }
+
+    private static string? DetectEvent(Scenario scenario, double fromS, double toS, double[] factors, double[] previous)
+    {
+        var env = scenario.Environment;
+        if (env.Irradiance.BreakpointsBetween(fromS + 1e-12, toS + 1e-12).Any()) return "irradiance change";
+        if (env.Temperature.Profile.BreakpointsBetween(fromS + 1e-12, toS + 1e-12).Any()) return "temperature change";
+        for (int k = 0; k < factors.Length; k++)
+        {
+            if (Math.Abs(factors[k] - previous[k]) > 0.01) return "shading change";
+        }
+        return null;
+    }
+
+    private static bool ConditionsChanged(ArrayConditions c, ArrayCurveCache cache, double[] factors, double[] previous)
+    {
+        var p = cache.PreparedConditions;
+        for (int k = 0; k < factors.Length; k++)
+        {
+            if (factors[k] != previous[k] || c.IrradianceWm2[k] != p.IrradianceWm2[k] || c.CellTemperatureC[k] != p.CellTemperatureC[k]) return true;
+        }
+        return false;
+    }
+
+    private static void WriteSeries(TrackerLane lane, double interval, double t, double v, double i, double p, PowerPeak mpp, double h)
+    {
+        lane.SumV += v; lane.SumI += i; lane.SumP += p; lane.SumPmpp += mpp.PowerW; lane.SeriesCount++;
+        if (interval > 0 && t < lane.NextSeriesS - 0.5 * h) return;
+        int c = lane.SeriesCount;
+        lane.Sink!.Write(new SeriesRow(t, lane.SumV / c, lane.SumI / c, lane.SumP / c, lane.SumPmpp / c, mpp.VoltageV, lane.Command));
+        lane.SumV = lane.SumI = lane.SumP = lane.SumPmpp = 0;
+        lane.SeriesCount = 0;
+        lane.NextSeriesS += interval;
+    }
+
+    private static CurveSnapshot Snapshot(double t, ArrayCurveCache cache)
+    {
+        const int points = 400;
+        var curve = cache.Curve;
+        double voc = curve.OpenCircuitVoltageV;
+        var v = new double[points + 1];
+        var p = new double[points + 1];
+        for (int k = 0; k <= points; k++)
+        {
+            v[k] = voc * k / points;
+            p[k] = v[k] * Math.Max(curve.CurrentAtVoltage(v[k]), 0.0);
+        }
+        return new CurveSnapshot(t, v, p, cache.Peaks);
+    }
+
+    /// <summary>A short digest of everything that defines the plant, so two summaries can tell whether they scored the same hardware.</summary>
+    public static string PlantDigest(Scenario s)
+    {
+        var inv = CultureInfo.InvariantCulture;
+        var r = s.Array.Module.Reference;
+        var text = string.Join("|",
+            string.Format(inv, "{0:R},{1:R},{2:R},{3:R},{4:R},{5},{6:R}", r.PhotocurrentA, r.SaturationCurrentA, r.ModifiedIdealityV, r.SeriesResistanceOhm, r.ShuntConductanceS, s.Array.Module.CellsInSeries, s.Array.Module.IscTemperatureCoefficientAPerK),
+            s.Array.Layout with { Bypass = s.Array.Layout.Bypass },
+            s.Array.Layout.Bypass, s.Array.Layout.Blocking?.ToString() ?? "none",
+            s.Converter, s.Sensors.Voltage, s.Sensors.Current);
+        var hash = SHA256.HashData(Encoding.UTF8.GetBytes(text));
+        return Convert.ToHexStringLower(hash)[..16];
+    }
+}

@@ -1,0 +1,22 @@
+using MpptArena.Scoring;
+
+namespace MpptArena.Runs;
+
+/// <summary>The outcome of one tracker in one run.</summary>
+/// <param name="Name">Tracker name from the scenario.</param>
+/// <param name="Kind">Tracker kind.</param>
+/// <param name="SamplePeriodS">Sample period [s].</param>
+/// <param name="Parameters">Parameter values, sorted by name.</param>
+/// <param name="Scores">Scores; null if the tracker failed.</param>
+/// <param name="Failure">Failure, or null.</param>
+/// <param name="TrackerCalls">Number of tracker calls made.</param>
+/// <param name="MeanComputeNs">Mean wall time per tracker call [ns]; informational, machine dependent.</param>
+public sealed record TrackerResult(
+    string Name,
+    string Kind,
+    double SamplePeriodS,
+    IReadOnlyList<KeyValuePair<string, double>> Parameters,
+    TrackerScores? Scores,
+    TrackerFailure? Failure,
+    long TrackerCalls,
+    double MeanComputeNs);

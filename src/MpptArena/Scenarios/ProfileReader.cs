@@ -1,0 +1,173 @@
+using System.Globalization;
+using MpptArena.Environment;
+using MpptArena.Scoring;
+using YamlDotNet.RepresentationModel;
+
+namespace MpptArena.Scenarios;
+
+/// <summary>
+/// Reads a time profile: a single number (constant), or a list of segments, each a one-key mapping:
+/// start, hold_s, step, ramp, points, repeat, en50530_ramps, cloud, csv.
+/// </summary>
+internal sealed class ProfileReader(string file, string baseDirectory, List<ScoringWindow> windows)
+{
+    private static readonly string[] SegmentKinds = ["start", "hold_s", "step", "ramp", "points", "repeat", "en50530_ramps", "cloud", "csv"];
+
+    /// <summary>Reads the profile at <paramref name="key"/> of <paramref name="parent"/>.</summary>
+    public PiecewiseLinearProfile Read(YamlMap parent, string key, double min, double max, bool irradiance)
+    {
+        var node = parent.Node(key)!;
+        string path = $"{parent.Path}.{key}";
+        if (node is YamlScalarNode)
+        {
+            double v = parent.Number(key, null, min, max);
+            return PiecewiseLinearProfile.Constant(v);
+        }
+        if (node is not YamlSequenceNode seq)
+        {
+            throw parent.Error(node, $"'{path}' must be a number or a list of segments ({string.Join(", ", SegmentKinds)})", key);
+        }
+        ProfileBuilder? builder = null;
+        Append(seq, path, ref builder, min, max, irradiance, depth: 0);
+        if (builder is null) throw parent.Error(node, $"'{path}' has no segments", key);
+        return builder.Build();
+    }
+
+    private void Append(YamlSequenceNode seq, string path, ref ProfileBuilder? builder, double min, double max, bool irradiance, int depth)
+    {
+        int index = 0;
+        foreach (var item in seq.Children)
+        {
+            var m = new YamlMap(item, file, $"{path}[{index}]", SegmentKinds);
+            if (m.Count != 1)
+            {
+                throw new ArenaInputException($"each segment of '{path}' has exactly one key ({string.Join(", ", SegmentKinds)}); this one has {m.Count}", "segment", m.Location);
+            }
+            if (m.Has("start"))
+            {
+                double v = m.Number("start", null, min, max);
+                if (builder is null) builder = new ProfileBuilder(v);
+                else builder.Step(v);
+            }
+            builder ??= new ProfileBuilder(FirstValue(m, min, max));
+            if (m.Has("hold_s")) builder.Hold(m.Number("hold_s", null, 0, double.PositiveInfinity));
+            if (m.Has("step")) builder.Step(m.Number("step", null, min, max));
+            if (m.Has("ramp")) Ramp(m, builder, min, max);
+            if (m.Has("points")) Points(m, builder, min, max);
+            if (m.Has("repeat"))
+            {
+                var r = m.Map("repeat", ["times", "segments"])!;
+                int times = r.Integer("times", null, 1, 100_000);
+                var inner = r.Sequence("segments") ?? throw r.Error(r.Required("segments", "a list of segments"), "'segments' must be a list");
+                if (depth > 8) throw r.Error(inner, "repeat is nested too deeply (more than 8 levels)");
+                for (int k = 0; k < times; k++) Append(inner, $"{r.Path}.segments", ref builder!, min, max, irradiance, depth + 1);
+            }
+            if (m.Has("en50530_ramps")) StandardRamps(m, builder, irradiance);
+            if (m.Has("cloud")) Cloud(m, builder, irradiance);
+            if (m.Has("csv")) Csv(m, builder, min, max);
+            index++;
+        }
+    }
+
+    private static double FirstValue(YamlMap m, double min, double max)
+    {
+        if (m.Has("step")) return m.Number("step", null, min, max);
+        throw new ArenaInputException("the first segment of a profile must give its starting value: 'start: VALUE' (or 'step: VALUE')", "start", m.Location);
+    }
+
+    private static void Ramp(YamlMap m, ProfileBuilder b, double min, double max)
+    {
+        var r = m.Map("ramp", ["to", "over_s", "rate_per_s"])!;
+        double to = r.Number("to", null, min, max);
+        if (r.Has("over_s") == r.Has("rate_per_s"))
+        {
+            throw new ArenaInputException($"'{r.Path}' needs exactly one of 'over_s' (duration, s) or 'rate_per_s' (slope, unit per second)", "ramp", r.Location);
+        }
+        if (r.Has("over_s")) b.Ramp(to, r.Number("over_s", null, 0, double.PositiveInfinity));
+        else b.RampAtRate(to, r.Positive("rate_per_s"));
+    }
+
+    private void Points(YamlMap m, ProfileBuilder b, double min, double max)
+    {
+        var seq = m.Sequence("points")!;
+        double t0 = b.TimeS, last = -1;
+        int k = 0;
+        foreach (var p in seq.Children)
+        {
+            if (p is not YamlSequenceNode pair || pair.Children.Count != 2)
+            {
+                throw m.Error(p, $"'{m.Path}.points[{k}]' must be a pair [time_s, value]");
+            }
+            double t = m.ParseNumber(pair.Children[0], "points", "a time in seconds");
+            double v = m.ParseNumber(pair.Children[1], "points", "a value");
+            if (t < last) throw m.Error(pair.Children[0], $"time goes backwards in '{m.Path}.points': {t} s comes after {last} s", "points");
+            if (t < 0) throw m.Error(pair.Children[0], $"'{m.Path}.points' times are relative to the segment start and must not be negative", "points");
+            if (v < min || v > max) throw m.Error(pair.Children[1], $"value {v} in '{m.Path}.points' is out of range: expected {min} to {max}", "points");
+            b.LineTo(t0 + t, v);
+            last = t;
+            k++;
+        }
+    }
+
+    private void StandardRamps(YamlMap m, ProfileBuilder b, bool irradiance)
+    {
+        var r = m.Map("en50530_ramps", ["range", "dwell_s", "max_slopes"])!;
+        if (!irradiance) throw new ArenaInputException("en50530_ramps is an irradiance sequence; it cannot drive temperature", "en50530_ramps", r.Location);
+        string range = r.Text("range", null, ["low", "high"]);
+        double dwell = r.Number("dwell_s", En50530RampSequence.DwellS, 0.0, 3600);
+        var blocks = range == "low" ? En50530RampSequence.LowRange : En50530RampSequence.HighRange;
+        int maxSlopes = r.Integer("max_slopes", blocks.Count, 1, blocks.Count);
+        var chosen = blocks.Skip(blocks.Count - maxSlopes).ToList(); // keep the steepest: the short ones
+        var (low, high) = range == "low" ? (100.0, 500.0) : (300.0, 1000.0);
+        var result = En50530RampSequence.Append(b, low, high, chosen, dwell);
+        string group = $"en50530_{range}";
+        foreach (var w in result)
+        {
+            windows.Add(new ScoringWindow($"{group}_{w.SlopeWm2PerS.ToString(CultureInfo.InvariantCulture)}_w_m2_s", w.StartS, w.EndS, w.SlopeWm2PerS, group));
+        }
+    }
+
+    private static void Cloud(YamlMap m, ProfileBuilder b, bool irradiance)
+    {
+        var c = m.Map("cloud", ["shadowed_w_m2", "enhancement_fraction", "enhancement_s", "ramp_w_m2_per_s", "shadow_s"])!;
+        if (!irradiance) throw new ArenaInputException("cloud is an irradiance segment; it cannot drive temperature", "cloud", c.Location);
+        new CloudPassage(b.Value, c.Number("shadowed_w_m2", null, 0, 2000), c.Number("enhancement_fraction", 0.2, 0, 1),
+            c.Number("enhancement_s", 4, 0, 600), c.Positive("ramp_w_m2_per_s", 100), c.Number("shadow_s", 10, 0, 36000)).AppendTo(b);
+    }
+
+    private void Csv(YamlMap m, ProfileBuilder b, double min, double max)
+    {
+        var c = m.Map("csv", ["file", "time_column", "value_column", "skip_header"])!;
+        string name = c.Text("file");
+        string full = System.IO.Path.IsPathRooted(name) ? name : System.IO.Path.Combine(baseDirectory, name);
+        if (!System.IO.File.Exists(full)) throw new ArenaInputException($"CSV file '{name}' not found (looked in {full})", "file", c.Location);
+        int tc = c.Integer("time_column", 1, 1, 1000) - 1, vc = c.Integer("value_column", 2, 1, 1000) - 1;
+        bool skipHeader = c.Text("skip_header", "true", ["true", "false"]) == "true";
+        double t0 = b.TimeS, last = double.NegativeInfinity;
+        int lineNo = 0, rows = 0;
+        foreach (string line in System.IO.File.ReadLines(full))
+        {
+            lineNo++;
+            if (lineNo == 1 && skipHeader) continue;
+            if (string.IsNullOrWhiteSpace(line) || line.TrimStart().StartsWith('#')) continue;
+            var cells = line.Split(',');
+            if (cells.Length <= Math.Max(tc, vc)) throw CsvError(name, lineNo, 1, $"expected at least {Math.Max(tc, vc) + 1} comma-separated columns");
+            if (!double.TryParse(cells[tc], NumberStyles.Float, CultureInfo.InvariantCulture, out double t) || !double.IsFinite(t))
+                throw CsvError(name, lineNo, ColumnOf(cells, tc), $"time '{cells[tc].Trim()}' is not a number (seconds)");
+            if (!double.TryParse(cells[vc], NumberStyles.Float, CultureInfo.InvariantCulture, out double v) || !double.IsFinite(v))
+                throw CsvError(name, lineNo, ColumnOf(cells, vc), $"value '{cells[vc].Trim()}' is not a number");
+            if (t < last) throw CsvError(name, lineNo, ColumnOf(cells, tc), $"time goes backwards: {t} s after {last} s");
+            if (v < min || v > max) throw CsvError(name, lineNo, ColumnOf(cells, vc), $"value {v} is out of range {min} to {max}");
+            if (rows == 0 && t < 0) throw CsvError(name, lineNo, ColumnOf(cells, tc), "times are relative to the segment start and must not be negative");
+            b.LineTo(t0 + t, v);
+            last = t;
+            rows++;
+        }
+        if (rows == 0) throw new ArenaInputException($"CSV file '{name}' holds no data rows", "file", c.Location);
+    }
+
+    private static int ColumnOf(string[] cells, int index) => cells.Take(index).Sum(c => c.Length + 1) + 1;
+
+    private static ArenaInputException CsvError(string file, int line, int column, string message) =>
+        new(message, "csv", new SourceLocation(file, line, column));
+}

@@ -1,0 +1,261 @@
+using MpptArena.Arrays;
+using MpptArena.Environment;
+using MpptArena.Plant;
+using MpptArena.Pv;
+using MpptArena.Runs;
+using MpptArena.Scoring;
+using MpptArena.Sensing;
+using MpptArena.Trackers;
+using YamlDotNet.Core;
+using YamlDotNet.RepresentationModel;
+
+namespace MpptArena.Scenarios;
+
+/// <summary>
+/// Reads a scenario file into a validated, immutable <see cref="Scenario"/>. Every error names the file,
+/// line and column and what was expected; nothing is run before the whole file is valid.
+/// The format is documented in README.md and in scenarios/scenario.schema.json.
+/// </summary>
+public static class ScenarioLoader
+{
+    private static readonly string[] TopKeys = ["name", "description", "module", "array", "converter", "sensors", "environment", "simulation", "trackers", "scoring"];
+
+    /// <summary>Loads a scenario file.</summary>
+    /// <param name="path">Path of the YAML file.</param>
+    /// <param name="registry">Tracker kinds that may be named.</param>
+    public static Scenario Load(string path, TrackerRegistry registry)
+    {
+        if (!File.Exists(path)) throw new ArenaInputException($"scenario file '{path}' not found", "file");
+        return Parse(File.ReadAllText(path), path, registry, Path.GetDirectoryName(Path.GetFullPath(path)) ?? ".");
+    }
+
+    /// <summary>Parses scenario text; <paramref name="file"/> is used in messages.</summary>
+    public static Scenario Parse(string yaml, string file, TrackerRegistry registry, string baseDirectory = ".")
+    {
+        var stream = new YamlStream();
+        try
+        {
+            stream.Load(new StringReader(yaml));
+        }
+        catch (YamlException ex)
+        {
+            string reason = ex.InnerException?.Message ?? ex.Message;
+            int colon = reason.IndexOf("): ", StringComparison.Ordinal);
+            if (colon >= 0) reason = reason[(colon + 3)..];
+            throw new ArenaInputException($"not valid YAML: {reason}", null, new SourceLocation(file, ex.Start.Line, ex.Start.Column));
+        }
+        if (stream.Documents.Count == 0) throw new ArenaInputException("the file is empty: expected a scenario mapping", null, new SourceLocation(file, 1, 1));
+        var root = new YamlMap(stream.Documents[0].RootNode, file, "scenario", TopKeys);
+
+        string name = root.Text("name");
+        if (name.Length == 0 || name.Any(c => !(char.IsAsciiLetterOrDigit(c) || c is '-' or '_')))
+        {
+            throw root.Error(root.Node("name")!, $"'name' = '{name}' must use only letters, digits, '-' and '_' (it names the results folder)", "name");
+        }
+        string description = root.Text("description", "");
+        var module = ReadModule(Required(root, "module", ["datasheet", "single_diode"]));
+        var array = ReadArray(Required(root, "array", ["substrings_per_module", "modules_per_string", "strings", "bypass_diode", "blocking_diode"]), module);
+        var sensors = ReadSensors(Required(root, "sensors", ["voltage", "current"]));
+        var converter = ReadConverter(Required(root, "converter", ConverterKeys), sensors);
+        var windows = new List<ScoringWindow>();
+        var environment = ReadEnvironment(Required(root, "environment", ["irradiance_w_m2", "cell_temperature_c", "ambient_temperature_c", "noct_c", "shading"]),
+            array, file, baseDirectory, windows);
+        var simulation = ReadSimulation(Required(root, "simulation", ["duration_s", "plant_step_us", "environment_step_ms", "seed", "reprepare_irradiance_w_m2", "reprepare_temperature_c", "series_interval_ms"]));
+        var trackers = ReadTrackers(root, registry, simulation);
+        var scoring = ReadScoring(root.Map("scoring", ["settling_band_fraction", "settling_hold_s", "static_allowance_s", "windows", "curve_snapshots_s"]), windows, simulation);
+        return new Scenario(name, description, array, converter, sensors, environment, simulation, trackers, scoring);
+    }
+
+    private static YamlMap Required(YamlMap parent, string key, IReadOnlyCollection<string> allowed) =>
+        parent.Map(key, allowed) ?? throw new ArenaInputException($"missing required section '{key}' in '{parent.Path}'", key, parent.Location);
+
+    private static ModuleModel ReadModule(YamlMap m)
+    {
+        if (m.Has("datasheet") == m.Has("single_diode"))
+        {
+            throw new ArenaInputException("'module' needs exactly one of 'datasheet' (fitted by the De Soto 2006 method) or 'single_diode' (the five parameters at STC)", "module", m.Location);
+        }
+        if (m.Map("datasheet", ["short_circuit_current_a", "open_circuit_voltage_v", "mpp_current_a", "mpp_voltage_v", "cells_in_series",
+                "isc_temperature_coefficient_a_per_k", "voc_temperature_coefficient_v_per_k"]) is { } d)
+        {
+            var sheet = new ModuleDatasheet(d.Positive("short_circuit_current_a"), d.Positive("open_circuit_voltage_v"), d.Positive("mpp_current_a"),
+                d.Positive("mpp_voltage_v"), d.Integer("cells_in_series", null, 1, 1000), d.Number("isc_temperature_coefficient_a_per_k", null, -1, 1),
+                d.Number("voc_temperature_coefficient_v_per_k", null, -10, 10));
+            try
+            {
+                return DeSotoDatasheetFit.Fit(sheet);
+            }
+            catch (ArenaInputException ex)
+            {
+                var at = ex.Field is not null && d.Node(ex.Field) is { } n ? d.Where(n) : d.Location;
+                throw new ArenaInputException(ex.Reason, ex.Field, at);
+            }
+        }
+        var s = m.Map("single_diode", ["photocurrent_a", "saturation_current_a", "modified_ideality_v", "series_resistance_ohm", "shunt_resistance_ohm",
+            "cells_in_series", "isc_temperature_coefficient_a_per_k"])!;
+        var p = SingleDiodeParameters.FromShuntResistance(s.Positive("photocurrent_a"), s.Positive("saturation_current_a"), s.Positive("modified_ideality_v"),
+            s.Number("series_resistance_ohm", null, 0, 1e3), s.Positive("shunt_resistance_ohm"));
+        return new ModuleModel(p, s.Integer("cells_in_series", null, 1, 1000), s.Number("isc_temperature_coefficient_a_per_k", 0, -1, 1));
+    }
+
+    private static BypassDiode ReadDiode(YamlMap d) =>
+        BypassDiode.FromForwardVoltage(d.Number("forward_voltage_v", null, 0.05, 2, true), d.Positive("at_current_a"), d.Number("ideality", 1.0, 0.5, 3));
+
+    private static PvArray ReadArray(YamlMap a, ModuleModel module)
+    {
+        int perModule = a.Integer("substrings_per_module", 3, 1, 100);
+        if (module.CellsInSeries % perModule != 0)
+        {
+            throw a.Error(a.Node("substrings_per_module") ?? a.Node("array") ?? a.Required("substrings_per_module", "a divisor of cells_in_series"),
+                $"'substrings_per_module' = {perModule} does not divide the module's {module.CellsInSeries} cells evenly", "substrings_per_module");
+        }
+        string[] diodeKeys = ["forward_voltage_v", "at_current_a", "ideality"];
+        var bypass = a.Map("bypass_diode", diodeKeys) is { } b ? ReadDiode(b) : BypassDiode.FromForwardVoltage(0.45, 10.0);
+        var blocking = a.Map("blocking_diode", diodeKeys) is { } k ? ReadDiode(k) : null;
+        var layout = new ArrayLayout(perModule, a.Integer("modules_per_string", null, 1, 1000), a.Integer("strings", 1, 1, 1000), bypass, blocking);
+        return new PvArray(module, layout);
+    }
+
+    private static AdcChannelSettings ReadAdc(YamlMap c, string unit)
+    {
+        return new AdcChannelSettings(c.Integer("bits", 12, 4, 24), c.Positive($"full_scale_{unit}"), c.Number("gain_error", 0, -0.5, 0.5),
+            c.Number($"offset_{unit}", 0), c.Number($"noise_rms_{unit}", 0, 0), c.Integer("averaging_samples", 1, 1, 10_000),
+            c.Number("averaging_window_us", 0, 0) * 1e-6);
+    }
+
+    private static SensorSettings ReadSensors(YamlMap s)
+    {
+        string[] common = ["bits", "gain_error", "averaging_samples", "averaging_window_us"];
+        var v = s.Map("voltage", [.. common, "full_scale_v", "offset_v", "noise_rms_v"]) ?? throw new ArenaInputException("missing required section 'voltage' in 'scenario.sensors'", "voltage", s.Location);
+        var i = s.Map("current", [.. common, "full_scale_a", "offset_a", "noise_rms_a"]) ?? throw new ArenaInputException("missing required section 'current' in 'scenario.sensors'", "current", s.Location);
+        return new SensorSettings(ReadAdc(v, "v"), ReadAdc(i, "a"));
+    }
+
+    private static readonly string[] ConverterKeys =
+    [
+        "type", "lag_time_constant_ms", "input_capacitance_uf", "inductance_mh", "inductor_resistance_ohm", "bus_voltage_v",
+        "battery_voltage_v", "battery_resistance_ohm", "min_duty", "max_duty", "voltage_loop_bandwidth_hz", "current_loop_bandwidth_hz",
+        "max_voltage_reference_v",
+    ];
+
+    private static ConverterSettings ReadConverter(YamlMap c, SensorSettings sensors)
+    {
+        string type = c.Text("type", null, ["ideal_source", "boost", "buck"]);
+        var kind = type switch { "boost" => FrontEndKind.Boost, "buck" => FrontEndKind.Buck, _ => FrontEndKind.IdealSource };
+        var d = new ConverterSettings(kind);
+        double minDuty = c.Number("min_duty", d.MinDuty, 0, 1), maxDuty = c.Number("max_duty", d.MaxDuty, 0, 1);
+        if (maxDuty <= minDuty) throw c.Error(c.Node("max_duty") ?? c.Node("min_duty")!, "'max_duty' must be above 'min_duty'", "max_duty");
+        return d with
+        {
+            LagTimeConstantS = c.Positive("lag_time_constant_ms", d.LagTimeConstantS * 1e3) * 1e-3,
+            InputCapacitanceF = c.Positive("input_capacitance_uf", d.InputCapacitanceF * 1e6) * 1e-6,
+            InductanceH = c.Positive("inductance_mh", d.InductanceH * 1e3) * 1e-3,
+            InductorResistanceOhm = c.Number("inductor_resistance_ohm", d.InductorResistanceOhm, 0),
+            BusVoltageV = c.Positive("bus_voltage_v", d.BusVoltageV),
+            BatteryVoltageV = c.Positive("battery_voltage_v", d.BatteryVoltageV),
+            BatteryResistanceOhm = c.Number("battery_resistance_ohm", d.BatteryResistanceOhm, 0),
+            MinDuty = minDuty,
+            MaxDuty = maxDuty,
+            VoltageLoopBandwidthHz = c.Positive("voltage_loop_bandwidth_hz", d.VoltageLoopBandwidthHz),
+            CurrentLoopBandwidthHz = c.Positive("current_loop_bandwidth_hz", d.CurrentLoopBandwidthHz),
+            MaxVoltageReferenceV = c.Positive("max_voltage_reference_v", sensors.Voltage.FullScale),
+        };
+    }
+
+    private static EnvironmentModel ReadEnvironment(YamlMap e, PvArray array, string file, string baseDir, List<ScoringWindow> windows)
+    {
+        var reader = new ProfileReader(file, baseDir, windows);
+        e.Required("irradiance_w_m2", "a number or a list of segments");
+        var irradiance = reader.Read(e, "irradiance_w_m2", 0, 2000, irradiance: true);
+        TemperatureModel temperature;
+        if (e.Has("cell_temperature_c") == e.Has("ambient_temperature_c"))
+        {
+            throw new ArenaInputException("'environment' needs exactly one of 'cell_temperature_c' or 'ambient_temperature_c' (with 'noct_c')", "cell_temperature_c", e.Location);
+        }
+        if (e.Has("cell_temperature_c"))
+        {
+            if (e.Has("noct_c")) throw e.Error(e.Node("noct_c")!, "'noct_c' goes with 'ambient_temperature_c', not with 'cell_temperature_c'", "noct_c");
+            temperature = new TemperatureModel(reader.Read(e, "cell_temperature_c", -60, 120, false), null);
+        }
+        else
+        {
+            temperature = new TemperatureModel(reader.Read(e, "ambient_temperature_c", -60, 70, false), e.Number("noct_c", null, 25, 80));
+        }
+        var shading = e.Sequence("shading") is { } seq ? ShadingReader.Read(seq, e, array.Layout, reader) : [];
+        return new EnvironmentModel(irradiance, temperature, shading);
+    }
+
+    private static SimulationSettings ReadSimulation(YamlMap s)
+    {
+        var d = new SimulationSettings(1);
+        double duration = s.Positive("duration_s");
+        double step = s.Number("plant_step_us", d.PlantStepS * 1e6, 1, 10_000) * 1e-6;
+        double env = s.Number("environment_step_ms", d.EnvironmentStepS * 1e3, 0.001, 10_000) * 1e-3;
+        if (env < step) throw s.Error(s.Node("environment_step_ms")!, "'environment_step_ms' must not be shorter than the plant step", "environment_step_ms");
+        if (duration / step > 2e9) throw s.Error(s.Node("duration_s")!, "duration_s / plant_step is over 2e9 steps; use a longer plant step", "duration_s");
+        string seedText = s.Has("seed") ? s.Scalar(s.Node("seed")!, "seed") : "1";
+        if (!ulong.TryParse(seedText, out ulong seed)) throw s.Error(s.Node("seed")!, $"'seed' = '{seedText}' must be a whole number from 0 to 18446744073709551615", "seed");
+        return new SimulationSettings(duration, step, env, seed, s.Positive("reprepare_irradiance_w_m2", d.ReprepareIrradianceWm2),
+            s.Positive("reprepare_temperature_c", d.ReprepareTemperatureC), s.Number("series_interval_ms", d.SeriesIntervalS * 1e3, 0) * 1e-3);
+    }
+
+    private static IReadOnlyList<TrackerSpec> ReadTrackers(YamlMap root, TrackerRegistry registry, SimulationSettings sim)
+    {
+        var seq = root.Sequence("trackers") ?? throw new ArenaInputException("missing required list 'trackers' in 'scenario'", "trackers", root.Location);
+        if (seq.Children.Count == 0) throw root.Error(seq, "'trackers' is empty: name at least one tracker", "trackers");
+        var specs = new List<TrackerSpec>();
+        int index = 0;
+        foreach (var item in seq.Children)
+        {
+            var t = new YamlMap(item, root.File, $"scenario.trackers[{index++}]", ["name", "type", "period_ms", "parameters"]);
+            string kind = t.Text("type");
+            var descriptor = registry.Find(kind)
+                             ?? throw t.Error(t.Node("type")!, $"unknown tracker type '{kind}'; known types: {string.Join(", ", registry.All.Select(d => d.Kind))}", "type");
+            string name = t.Text("name", kind);
+            if (specs.Any(s => s.Name == name)) throw t.Error(t.Node("name") ?? item, $"tracker name '{name}' is used twice; names must be unique", "name");
+            double periodS = t.Number("period_ms", 10, 0.001, 3_600_000) * 1e-3;
+            if (periodS < sim.PlantStepS * 0.999) throw t.Error(t.Node("period_ms")!, "'period_ms' is shorter than the plant step", "period_ms");
+            var given = new Dictionary<string, double>(StringComparer.Ordinal);
+            var pm = t.Has("parameters") ? new YamlMap(t.Node("parameters")!, root.File, $"{t.Path}.parameters", descriptor.Parameters.Select(p => p.Name).ToArray()) : null;
+            if (pm is not null)
+            {
+                foreach (var p in descriptor.Parameters)
+                {
+                    if (pm.Has(p.Name)) given[p.Name] = pm.Number(p.Name, null, p.Min, p.Max);
+                }
+            }
+            var settings = new TrackerSettings(descriptor.Parameters, given);
+            specs.Add(new TrackerSpec(name, descriptor, settings, periodS));
+        }
+        return specs;
+    }
+
+    private static ScoringSettings ReadScoring(YamlMap? s, List<ScoringWindow> windows, SimulationSettings sim)
+    {
+        var d = new ScoringSettings();
+        if (s is null) return d with { Windows = windows };
+        if (s.Sequence("windows") is { } seq)
+        {
+            int k = 0;
+            foreach (var item in seq.Children)
+            {
+                var w = new YamlMap(item, s.File, $"{s.Path}.windows[{k++}]", ["name", "start_s", "end_s"]);
+                double start = w.Number("start_s", null, 0), end = w.Number("end_s", null, 0);
+                if (end <= start) throw w.Error(w.Node("end_s")!, "'end_s' must be after 'start_s'", "end_s");
+                windows.Add(new ScoringWindow(w.Text("name"), start, end));
+            }
+        }
+        var snapshots = new List<double>();
+        if (s.Sequence("curve_snapshots_s") is { } snaps)
+        {
+            foreach (var n in snaps.Children)
+            {
+                double t = s.ParseNumber(n, "curve_snapshots_s", "a time in seconds");
+                if (t < 0 || t > sim.DurationS) throw s.Error(n, $"snapshot time {t} s is outside the run (0 to {sim.DurationS} s)", "curve_snapshots_s");
+                snapshots.Add(t);
+            }
+        }
+        return new ScoringSettings(s.Number("settling_band_fraction", d.SettlingBandFraction, 0, 1, true), s.Number("settling_hold_s", d.SettlingHoldS, 0),
+            s.Number("static_allowance_s", d.StaticAllowanceS, 0), windows, snapshots);
+    }
+}

@@ -1,0 +1,169 @@
+namespace MpptArena.Scoring;
+
+/// <summary>
+/// Accumulates every score of one tracker as the run goes, from one <see cref="PlantSample"/> per plant
+/// step, so that no series is held in memory.
+/// </summary>
+/// <remarks>
+/// Efficiency is the energy ratio of IEC 62891:2020 / EN 50530:2010: the integral of v i dt over the
+/// integral of P_MPP dt, over the same window. Settling: after each event, the time until power enters
+/// a band of +/- band * P_MPP around the MPP power and stays there for the hold time.
+/// </remarks>
+public sealed class TrackerScorer
+{
+    private readonly ScoringSettings _settings;
+    private readonly double[] _windowEnergyJ, _windowAvailableJ;
+    private readonly List<SettlingScore> _settling = [];
+    private double _energyJ, _availableJ, _staticEnergyJ, _staticAvailableJ;
+    private double? _startupS;
+    private double _multiPeakS, _onGlobalS, _lowerLossJ;
+
+    private double _eventS = double.NaN;
+    private string _eventLabel = "";
+    private double _inBandSince = double.NaN;
+    private double? _settledAfterS;
+    private bool _settled;
+
+    private double _spanStartS, _vDevMin, _vDevMax, _pDevMin, _pDevMax, _spanLossJ;
+    private double _rippleWeightS, _rippleVSum, _ripplePSum, _rippleLossJ, _rippleTimeS;
+
+    /// <summary>A scorer for one tracker.</summary>
+    public TrackerScorer(ScoringSettings settings)
+    {
+        _settings = settings;
+        _windowEnergyJ = new double[settings.AllWindows.Count];
+        _windowAvailableJ = new double[settings.AllWindows.Count];
+    }
+
+    /// <summary>Marks an event (start-up, a change of conditions) from which settling is timed.</summary>
+    public void MarkEvent(double timeS, string label)
+    {
+        CloseRippleSpan(timeS);
+        CloseEvent();
+        _eventS = timeS;
+        _eventLabel = label;
+        _inBandSince = double.NaN;
+        _settled = false;
+        _settledAfterS = null;
+    }
+
+    /// <summary>Takes one plant step.</summary>
+    public void Observe(in PlantSample s)
+    {
+        double e = s.PowerW * s.DtS, avail = s.MppPowerW * s.DtS;
+        _energyJ += e;
+        _availableJ += avail;
+        if (s.StableForS >= _settings.StaticAllowanceS)
+        {
+            _staticEnergyJ += e;
+            _staticAvailableJ += avail;
+        }
+        var windows = _settings.AllWindows;
+        for (int w = 0; w < windows.Count; w++)
+        {
+            if (s.TimeS > windows[w].StartS && s.TimeS <= windows[w].EndS)
+            {
+                _windowEnergyJ[w] += e;
+                _windowAvailableJ[w] += avail;
+            }
+        }
+        if (s.MultiPeak)
+        {
+            _multiPeakS += s.DtS;
+            if (s.OnGlobalHill) _onGlobalS += s.DtS;
+            else _lowerLossJ += Math.Max(avail - e, 0.0);
+        }
+
+        double band = _settings.SettlingBandFraction * s.MppPowerW;
+        bool inBand = Math.Abs(s.MppPowerW - s.PowerW) <= band || s.MppPowerW <= 0;
+        if (_startupS is null && inBand && s.MppPowerW > 0) _startupS = s.TimeS;
+
+        if (_settled)
+        {
+            double vDev = s.VoltageV - s.MppVoltageV, pDev = s.MppPowerW - s.PowerW;
+            _vDevMin = Math.Min(_vDevMin, vDev); _vDevMax = Math.Max(_vDevMax, vDev);
+            _pDevMin = Math.Min(_pDevMin, pDev); _pDevMax = Math.Max(_pDevMax, pDev);
+            _spanLossJ += pDev * s.DtS;
+            return;
+        }
+        if (double.IsNaN(_eventS)) return;
+        if (!inBand)
+        {
+            _inBandSince = double.NaN;
+            return;
+        }
+        if (double.IsNaN(_inBandSince)) _inBandSince = s.TimeS - s.DtS;
+        if (s.TimeS - _inBandSince >= _settings.SettlingHoldS - 1e-12)
+        {
+            _settled = true;
+            _settledAfterS = Math.Max(_inBandSince - _eventS, 0.0);
+            _spanStartS = s.TimeS;
+            _vDevMin = _pDevMin = double.PositiveInfinity;
+            _vDevMax = _pDevMax = double.NegativeInfinity;
+            _spanLossJ = 0;
+        }
+    }
+
+    private void CloseEvent()
+    {
+        if (double.IsNaN(_eventS)) return;
+        _settling.Add(new SettlingScore(_eventS, _eventLabel, _settledAfterS));
+        _eventS = double.NaN;
+    }
+
+    private void CloseRippleSpan(double endS)
+    {
+        if (!_settled) return;
+        double span = endS - _spanStartS;
+        if (span > 0 && double.IsFinite(_vDevMax))
+        {
+            _rippleVSum += (_vDevMax - _vDevMin) * span;
+            _ripplePSum += (_pDevMax - _pDevMin) * span;
+            _rippleWeightS += span;
+            _rippleLossJ += _spanLossJ;
+            _rippleTimeS += span;
+        }
+        _settled = false;
+    }
+
+    /// <summary>Final scores at the end of the run.</summary>
+    public TrackerScores Finish(double endS)
+    {
+        CloseRippleSpan(endS);
+        CloseEvent();
+        const double jPerWh = 3600.0;
+        var windows = _settings.AllWindows.Select((w, k) => new WindowScore(
+            w.Name, w.StartS, w.EndS, w.SlopeWm2PerS, _windowEnergyJ[k] / jPerWh, _windowAvailableJ[k] / jPerWh,
+            Ratio(_windowEnergyJ[k], _windowAvailableJ[k]))).ToList();
+        var groups = _settings.AllWindows.Select((w, k) => (w, k)).Where(x => x.w.Group is not null)
+            .GroupBy(x => x.w.Group!)
+            .Select(g =>
+            {
+                double e = g.Sum(x => _windowEnergyJ[x.k]), a = g.Sum(x => _windowAvailableJ[x.k]);
+                return new WindowScore(g.Key, g.Min(x => x.w.StartS), g.Max(x => x.w.EndS), null, e / jPerWh, a / jPerWh, Ratio(e, a));
+            }).ToList();
+        var settled = _settling.Where(s => s.SettlingTimeS is not null).Select(s => s.SettlingTimeS!.Value).ToList();
+        return new TrackerScores
+        {
+            TrackingEfficiency = Ratio(_energyJ, _availableJ),
+            StaticEfficiency = _staticAvailableJ > 0 ? _staticEnergyJ / _staticAvailableJ : null,
+            EnergyWh = _energyJ / jPerWh,
+            AvailableEnergyWh = _availableJ / jPerWh,
+            StartupTimeS = _startupS,
+            MeanSettlingTimeS = settled.Count > 0 ? settled.Average() : null,
+            WorstSettlingTimeS = settled.Count > 0 ? settled.Max() : null,
+            EventsNeverSettled = _settling.Count - settled.Count,
+            Settling = _settling.ToList(),
+            RippleVoltagePeakToPeakV = _rippleWeightS > 0 ? _rippleVSum / _rippleWeightS : null,
+            RipplePowerPeakToPeakW = _rippleWeightS > 0 ? _ripplePSum / _rippleWeightS : null,
+            RippleMeanLossW = _rippleTimeS > 0 ? _rippleLossJ / _rippleTimeS : null,
+            MultiPeakTimeS = _multiPeakS,
+            GlobalPeakTimeShare = _multiPeakS > 0 ? _onGlobalS / _multiPeakS : null,
+            LowerPeakEnergyLostWh = _lowerLossJ / jPerWh,
+            Windows = windows,
+            Groups = groups,
+        };
+    }
+
+    private static double Ratio(double e, double a) => a > 0 ? e / a : 0.0;
+}
