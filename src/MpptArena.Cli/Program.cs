@@ -1,6 +1,62 @@
+using MpptArena.Cli.Commands;
+
 namespace MpptArena.Cli;
 
+/// <summary>The mppt-arena command: parse, call the library, print.</summary>
 internal static class Program
 {
-    public static int Main(string[] args) => 0;
+    private const string Help = """
+        mppt-arena: score maximum-power-point trackers against a simulated PV array.
+
+        commands:
+          run SCENARIO.yaml        run every tracker of a scenario; write a results folder
+          curve FILE.yaml          I-V and P-V curves and every MPP of a plant (or a scenario at --at SECONDS)
+          compare BASELINE CURRENT compare two summaries (files or results folders); exit 1 on regression
+          trackers                 list tracker kinds and their parameters
+          validate SCENARIO.yaml...check scenario files without running them
+          new-tracker NAME         scaffold a C# tracker project
+          sweep SWEEP.yaml         run a parameter sweep (with --shard K/N for one part of it)
+          merge SHARD_DIR...       join sweep shards into one result
+
+        exit codes: 0 ok, 1 a gate failed (threshold or regression), 2 bad input, 3 internal error
+        """;
+
+    public static int Main(string[] args)
+    {
+        if (args.Length == 0 || args[0] is "-h" or "--help" or "help")
+        {
+            Console.WriteLine(Help);
+            return args.Length == 0 ? ExitCodes.BadInput : ExitCodes.Ok;
+        }
+        string[] rest = args[1..];
+        try
+        {
+            return args[0] switch
+            {
+                "run" => RunCommand.Execute(rest),
+                "curve" => CurveCommand.Execute(rest),
+                "compare" => CompareCommand.Execute(rest),
+                "trackers" => TrackersCommand.Execute(rest),
+                "validate" => ValidateCommand.Execute(rest),
+                "--version" => Version(),
+                _ => throw new ArenaInputException($"unknown command '{args[0]}'; run 'mppt-arena --help' for the list", "command"),
+            };
+        }
+        catch (ArenaInputException ex)
+        {
+            Console.Error.WriteLine($"error: {ex.Message}");
+            return ExitCodes.BadInput;
+        }
+        catch (Exception ex) when (System.Environment.GetEnvironmentVariable("MPPT_ARENA_DEBUG") is null)
+        {
+            Console.Error.WriteLine($"internal error: {ex.GetType().Name}: {ex.Message} (set MPPT_ARENA_DEBUG=1 for details, and please report it)");
+            return ExitCodes.InternalError;
+        }
+    }
+
+    private static int Version()
+    {
+        Console.WriteLine(MpptArena.Reports.Summary.SummaryBuilder.ToolVersion);
+        return ExitCodes.Ok;
+    }
 }

@@ -56,7 +56,7 @@ public sealed class ScenarioRunner
         foreach (var lane in lanes)
         {
             lane.FrontEnd.Reset(cache.Curve.OpenCircuitVoltageV);
-            lane.Scorer.MarkEvent(0.0, "start-up");
+            lane.Scorer.MarkEvent(0.0, TrackerScorer.StartupLabel);
             try
             {
                 double first = lane.Tracker.Reset(lane.Context);

@@ -18,7 +18,9 @@ namespace MpptArena.Scenarios;
 /// </summary>
 public static class ScenarioLoader
 {
-    private static readonly string[] TopKeys = ["name", "description", "module", "array", "converter", "sensors", "environment", "simulation", "trackers", "scoring"];
+    private static readonly string[] TopKeys = ["name", "description", "module", "array", "converter", "sensors", "environment", "simulation", "trackers", "scoring", "plugins"];
+    private static readonly string[] PlantKeys = ["name", "description", "module", "array", "conditions"];
+    private static readonly string[] EnvironmentKeys = ["irradiance_w_m2", "cell_temperature_c", "ambient_temperature_c", "noct_c", "shading"];
 
     /// <summary>Loads a scenario file.</summary>
     /// <param name="path">Path of the YAML file.</param>
@@ -29,8 +31,49 @@ public static class ScenarioLoader
         return Parse(File.ReadAllText(path), path, registry, Path.GetDirectoryName(Path.GetFullPath(path)) ?? ".");
     }
 
-    /// <summary>Parses scenario text; <paramref name="file"/> is used in messages.</summary>
-    public static Scenario Parse(string yaml, string file, TrackerRegistry registry, string baseDirectory = ".")
+    /// <summary>
+    /// Loads what the curve command needs from either a plant file (name, module, array, conditions) or a
+    /// scenario file (its environment evaluated at <paramref name="atS"/>).
+    /// </summary>
+    public static (string Name, PvArray Array, ArrayConditions Conditions) LoadCurveSetup(string path, double atS)
+    {
+        if (!File.Exists(path)) throw new ArenaInputException($"file '{path}' not found", "file");
+        string dir = Path.GetDirectoryName(Path.GetFullPath(path)) ?? ".";
+        var top = ReadRoot(File.ReadAllText(path), path);
+        EnvironmentModel environment;
+        YamlMap root;
+        if (top is YamlMappingNode m && m.Children.Keys.OfType<YamlScalarNode>().Any(k => k.Value == "conditions"))
+        {
+            root = new YamlMap(top, path, "plant", PlantKeys);
+            var module = ReadModule(Required(root, "module", ["datasheet", "single_diode"]));
+            var array = ReadArray(Required(root, "array", ArrayKeys), module);
+            environment = ReadEnvironment(Required(root, "conditions", EnvironmentKeys), array, path, dir, []);
+            return (ReadName(root), array, Evaluate(array, environment, atS));
+        }
+        var scenario = Parse(File.ReadAllText(path), path, TrackerRegistry.WithBuiltIns(), dir);
+        return (scenario.Name, scenario.Array, Evaluate(scenario.Array, scenario.Environment, atS));
+    }
+
+    private static ArrayConditions Evaluate(PvArray array, EnvironmentModel environment, double atS)
+    {
+        var c = array.UniformConditions(0, 25);
+        environment.Evaluate(atS, c, new double[c.IrradianceWm2.Length]);
+        return c;
+    }
+
+    private static readonly string[] ArrayKeys = ["substrings_per_module", "modules_per_string", "strings", "bypass_diode", "blocking_diode"];
+
+    private static string ReadName(YamlMap root)
+    {
+        string name = root.Text("name");
+        if (name.Length == 0 || name.Any(c => !(char.IsAsciiLetterOrDigit(c) || c is '-' or '_')))
+        {
+            throw root.Error(root.Node("name")!, $"'name' = '{name}' must use only letters, digits, '-' and '_' (it names the results folder)", "name");
+        }
+        return name;
+    }
+
+    private static YamlNode ReadRoot(string yaml, string file)
     {
         var stream = new YamlStream();
         try
@@ -44,21 +87,44 @@ public static class ScenarioLoader
             if (colon >= 0) reason = reason[(colon + 3)..];
             throw new ArenaInputException($"not valid YAML: {reason}", null, new SourceLocation(file, ex.Start.Line, ex.Start.Column));
         }
-        if (stream.Documents.Count == 0) throw new ArenaInputException("the file is empty: expected a scenario mapping", null, new SourceLocation(file, 1, 1));
-        var root = new YamlMap(stream.Documents[0].RootNode, file, "scenario", TopKeys);
+        if (stream.Documents.Count == 0) throw new ArenaInputException("the file is empty: expected a mapping", null, new SourceLocation(file, 1, 1));
+        return stream.Documents[0].RootNode;
+    }
 
-        string name = root.Text("name");
-        if (name.Length == 0 || name.Any(c => !(char.IsAsciiLetterOrDigit(c) || c is '-' or '_')))
+    /// <summary>Parses scenario text; <paramref name="file"/> is used in messages.</summary>
+    public static Scenario Parse(string yaml, string file, TrackerRegistry registry, string baseDirectory = ".")
+    {
+        var root = new YamlMap(ReadRoot(yaml, file), file, "scenario", TopKeys);
+        if (root.Sequence("plugins") is { } plugins)
         {
-            throw root.Error(root.Node("name")!, $"'name' = '{name}' must use only letters, digits, '-' and '_' (it names the results folder)", "name");
+            registry = registry.Clone();
+            foreach (var p in plugins.Children)
+            {
+                string rel = root.Scalar(p, "plugins", "a path to a .NET assembly");
+                string full = Path.IsPathRooted(rel) ? rel : Path.Combine(baseDirectory, rel);
+                try
+                {
+                    TrackerPluginLoader.LoadInto(registry, full);
+                }
+                catch (ArenaInputException ex)
+                {
+                    throw new ArenaInputException(ex.Reason, "plugins", root.Where(p));
+                }
+            }
         }
+        return ParseRoot(root, file, registry, baseDirectory);
+    }
+
+    private static Scenario ParseRoot(YamlMap root, string file, TrackerRegistry registry, string baseDirectory)
+    {
+        string name = ReadName(root);
         string description = root.Text("description", "");
         var module = ReadModule(Required(root, "module", ["datasheet", "single_diode"]));
-        var array = ReadArray(Required(root, "array", ["substrings_per_module", "modules_per_string", "strings", "bypass_diode", "blocking_diode"]), module);
+        var array = ReadArray(Required(root, "array", ArrayKeys), module);
         var sensors = ReadSensors(Required(root, "sensors", ["voltage", "current"]));
         var converter = ReadConverter(Required(root, "converter", ConverterKeys), sensors);
         var windows = new List<ScoringWindow>();
-        var environment = ReadEnvironment(Required(root, "environment", ["irradiance_w_m2", "cell_temperature_c", "ambient_temperature_c", "noct_c", "shading"]),
+        var environment = ReadEnvironment(Required(root, "environment", EnvironmentKeys),
             array, file, baseDirectory, windows);
         var simulation = ReadSimulation(Required(root, "simulation", ["duration_s", "plant_step_us", "environment_step_ms", "seed", "reprepare_irradiance_w_m2", "reprepare_temperature_c", "series_interval_ms"]));
         var trackers = ReadTrackers(root, registry, simulation);

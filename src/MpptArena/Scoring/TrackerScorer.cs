@@ -15,7 +15,6 @@ public sealed class TrackerScorer
     private readonly double[] _windowEnergyJ, _windowAvailableJ;
     private readonly List<SettlingScore> _settling = [];
     private double _energyJ, _availableJ, _staticEnergyJ, _staticAvailableJ;
-    private double? _startupS;
     private double _multiPeakS, _onGlobalS, _lowerLossJ;
 
     private double _eventS = double.NaN;
@@ -26,6 +25,9 @@ public sealed class TrackerScorer
 
     private double _spanStartS, _vDevMin, _vDevMax, _pDevMin, _pDevMax, _spanLossJ;
     private double _rippleWeightS, _rippleVSum, _ripplePSum, _rippleLossJ, _rippleTimeS;
+
+    /// <summary>Label of the start-up event at t = 0; its settling time is the start-up time.</summary>
+    public const string StartupLabel = "start-up";
 
     /// <summary>A scorer for one tracker.</summary>
     public TrackerScorer(ScoringSettings settings)
@@ -76,7 +78,6 @@ public sealed class TrackerScorer
 
         double band = _settings.SettlingBandFraction * s.MppPowerW;
         bool inBand = Math.Abs(s.MppPowerW - s.PowerW) <= band || s.MppPowerW <= 0;
-        if (_startupS is null && inBand && s.MppPowerW > 0) _startupS = s.TimeS;
 
         if (_settled)
         {
@@ -149,7 +150,7 @@ public sealed class TrackerScorer
             StaticEfficiency = _staticAvailableJ > 0 ? _staticEnergyJ / _staticAvailableJ : null,
             EnergyWh = _energyJ / jPerWh,
             AvailableEnergyWh = _availableJ / jPerWh,
-            StartupTimeS = _startupS,
+            StartupTimeS = _settling.Count > 0 && _settling[0].Label == StartupLabel ? _settling[0].SettlingTimeS : null,
             MeanSettlingTimeS = settled.Count > 0 ? settled.Average() : null,
             WorstSettlingTimeS = settled.Count > 0 ? settled.Max() : null,
             EventsNeverSettled = _settling.Count - settled.Count,

@@ -18,7 +18,7 @@ public sealed record TrackerScores
     /// <summary>Available minus taken [Wh].</summary>
     public double EnergyLostWh => AvailableEnergyWh - EnergyWh;
 
-    /// <summary>Time from t = 0 until power first reached the settling band [s]; null if never.</summary>
+    /// <summary>Settling time of the start-up event at t = 0 [s]; null if it never settled before the next event.</summary>
     public required double? StartupTimeS { get; init; }
 
     /// <summary>Mean settling time over events that settled [s].</summary>

@@ -44,6 +44,14 @@ public sealed class TrackerRegistry
         }
     }
 
+    /// <summary>A copy that can take more kinds without changing this one.</summary>
+    public TrackerRegistry Clone()
+    {
+        var r = new TrackerRegistry();
+        foreach (var d in _byKind.Values) r._byKind[d.Kind] = d;
+        return r;
+    }
+
     /// <summary>All kinds, sorted by name.</summary>
     public IReadOnlyList<TrackerDescriptor> All => _byKind.Values.OrderBy(d => d.Kind, StringComparer.Ordinal).ToList();
 

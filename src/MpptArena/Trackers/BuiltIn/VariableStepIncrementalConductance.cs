@@ -17,8 +17,8 @@ public sealed class VariableStepIncrementalConductance : IMpptTracker
     /// <summary>Declared parameters.</summary>
     public static IReadOnlyList<TrackerParameter> Parameters { get; } =
     [
-        new("scale_v2_per_w", "V^2/W", 0.05, 0.0, 1e3, "N: step = N |dP/dV|"),
-        new("max_step_v", "V", 8.0, 1e-3, 1e4, "Largest step of the voltage reference"),
+        new("scale_v2_per_w", "V^2/W", 0.5, 0.0, 1e3, "N: step = N |dP/dV|"),
+        new("max_step_v", "V", 5.0, 1e-3, 1e4, "Largest step of the voltage reference"),
         new("min_step_v", "V", 0.2, 0.0, 1e4, "Smallest step of the voltage reference"),
         new("tolerance", "-", 0.01, 0.0, 1.0, "Relative band on dI/dV + I/V inside which the reference is held"),
         new("start_fraction", "-", 0.8, 0.0, 1.2, "Initial reference as a fraction of the array's STC open-circuit voltage"),

@@ -1,0 +1,27 @@
+#!/usr/bin/env bash
+# MpptArena front door.
+#   ./run.sh              run the bundled demo scenario (results under results/)
+#   ./run.sh test         build and run the test suite
+#   ./run.sh bench [...]  run the BenchmarkDotNet suites (Release)
+#   ./run.sh ARGS...      any mppt-arena command, e.g. ./run.sh curve scenarios/plant-two-peaks.yaml
+set -euo pipefail
+cd "$(dirname "$0")"
+export DOTNET_CLI_TELEMETRY_OPTOUT=1 DOTNET_NOLOGO=1 DOTNET_SKIP_FIRST_TIME_EXPERIENCE=1
+
+cli() {
+  dotnet build src/MpptArena.Cli/MpptArena.Cli.csproj -c Release -nologo -v quiet -clp:ErrorsOnly >&2
+  dotnet src/MpptArena.Cli/bin/Release/net10.0/mppt-arena.dll "$@"
+}
+
+case "${1:-}" in
+  "")
+    cli run scenarios/demo-moving-shadow.yaml ;;
+  test)
+    shift
+    dotnet test MpptArena.sln -c Release -nologo "$@" ;;
+  bench)
+    shift
+    dotnet run --project src/MpptArena.Benchmarks/MpptArena.Benchmarks.csproj -c Release -- "$@" ;;
+  *)
+    cli "$@" ;;
+esac

@@ -1,0 +1,46 @@
+using System.Globalization;
+using MpptArena.Reports.Comparison;
+using MpptArena.Reports.Exporters;
+using MpptArena.Reports.Summary;
+
+namespace MpptArena.Cli.Commands;
+
+/// <summary>mppt-arena compare BASELINE CURRENT: the regression gate. Exit 0 nothing regressed, 1 something did, 2 bad input.</summary>
+internal static class CompareCommand
+{
+    public const string Usage = "mppt-arena compare BASELINE CURRENT [--tolerances FILE.yaml] [--tolerance SCORE=ABS[,REL]]... [--junit FILE] [--all]";
+
+    public static int Execute(string[] args)
+    {
+        var a = new ArgumentReader(args, "compare", ["--tolerances", "--tolerance", "--junit"], ["--all"]);
+        a.RequirePositional(2, Usage);
+        var tolerances = new ToleranceSet();
+        if (a.Option("--tolerances") is { } file) tolerances.LoadYaml(file);
+        foreach (string t in a.Options("--tolerance")) tolerances.ParseOption(t);
+        var baseline = SummaryJson.Read(a.Positional[0]);
+        var current = SummaryJson.Read(a.Positional[1]);
+        var changes = SummaryComparer.Compare(baseline, current, tolerances);
+
+        var c = CultureInfo.InvariantCulture;
+        string Num(double? v) => v is { } x ? x.ToString("G6", c) : "undefined";
+        foreach (var ch in changes.Where(ch => a.Flag("--all") || ch.Verdict != ScoreVerdict.Unchanged))
+        {
+            string delta = ch.Delta is { } d ? $" ({(d >= 0 ? "+" : "")}{d.ToString("G4", c)}, allowed {ch.Allowance.ToString("G3", c)})" : "";
+            Console.WriteLine($"{ch.Verdict.ToString().ToLowerInvariant(),-10} {ch.Tracker}.{ch.Score}: {Num(ch.Baseline)} -> {Num(ch.Current)}{delta}");
+        }
+        int regressions = changes.Count(ch => ch.IsRegression);
+        int improvements = changes.Count(ch => ch.Verdict == ScoreVerdict.Improved);
+        Console.WriteLine($"{current.Scenario.Name}: {regressions} regressed, {improvements} improved, {changes.Count(ch => ch.Verdict == ScoreVerdict.Unchanged)} within tolerance");
+        if (baseline.Scenario.PlantDigest != current.Scenario.PlantDigest || baseline.Scenario.Seed != current.Scenario.Seed)
+        {
+            Console.WriteLine("note: the plant or the seed differ between the two summaries; scores are not strictly comparable");
+        }
+        if (a.Option("--junit") is { } junit)
+        {
+            JUnitWriter.Write(junit, changes.Where(ch => ch.Verdict != ScoreVerdict.New).Select(ch => new JUnitCase(
+                ch.Scenario, $"{ch.Tracker}.{ch.Score}", ch.IsRegression ? $"{ch.Verdict}: {Num(ch.Baseline)} -> {Num(ch.Current)}" : null,
+                $"baseline {Num(ch.Baseline)}, current {Num(ch.Current)}, allowed worsening {ch.Allowance.ToString("G3", c)}")));
+        }
+        return regressions > 0 ? ExitCodes.GateFailed : ExitCodes.Ok;
+    }
+}

@@ -1,0 +1,25 @@
+using System.Globalization;
+using Spectre.Console;
+
+namespace MpptArena.Cli.Commands;
+
+/// <summary>mppt-arena trackers: the tracker kinds and their declared parameters.</summary>
+internal static class TrackersCommand
+{
+    public static int Execute(string[] args)
+    {
+        var a = new ArgumentReader(args, "trackers", ["--plugin"], []);
+        var registry = Plugins.Registry(a.Options("--plugin"));
+        var c = CultureInfo.InvariantCulture;
+        foreach (var d in registry.All)
+        {
+            AnsiConsole.MarkupLine($"[bold]{Markup.Escape(d.Kind)}[/]: {Markup.Escape(d.Summary)}");
+            if (d.Source.Length > 0) AnsiConsole.MarkupLine($"  source: {Markup.Escape(d.Source)}");
+            foreach (var p in d.Parameters)
+            {
+                Console.WriteLine($"  {p.Name} [{p.Unit}] default {p.Default.ToString("G6", c)}, range {p.Min.ToString("G6", c)} to {p.Max.ToString("G6", c)}: {p.Description}");
+            }
+        }
+        return ExitCodes.Ok;
+    }
+}

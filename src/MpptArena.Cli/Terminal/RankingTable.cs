@@ -1,0 +1,38 @@
+using System.Globalization;
+using MpptArena.Reports.Summary;
+using Spectre.Console;
+
+namespace MpptArena.Cli.Terminal;
+
+/// <summary>The ranking printed at the end of a run.</summary>
+internal static class RankingTable
+{
+    public static void Print(RunSummary s)
+    {
+        var c = CultureInfo.InvariantCulture;
+        var table = new Table().Border(TableBorder.Rounded).Title($"[bold]{Markup.Escape(s.Scenario.Name)}[/]");
+        table.AddColumn("#");
+        table.AddColumn("tracker");
+        table.AddColumn(new TableColumn("efficiency").RightAligned());
+        table.AddColumn(new TableColumn("lost Wh").RightAligned());
+        table.AddColumn(new TableColumn("start-up s").RightAligned());
+        table.AddColumn(new TableColumn("settling s").RightAligned());
+        table.AddColumn(new TableColumn("ripple V").RightAligned());
+        table.AddColumn(new TableColumn("on global").RightAligned());
+        int rank = 1;
+        foreach (string name in s.Ranking)
+        {
+            var t = s.Trackers.First(x => x.Name == name);
+            if (t.Failed)
+            {
+                table.AddRow("-", Markup.Escape(t.Name), "[red]failed[/]", "", "", "", "", Markup.Escape(t.FailureReason ?? ""));
+                continue;
+            }
+            string F(string key, string f) => t.Scores.GetValueOrDefault(key) is { } v ? v.ToString(f, c) : "n/a";
+            table.AddRow(rank++.ToString(c), Markup.Escape(t.Name), F("tracking_efficiency", "0.0000"),
+                F("energy_lost_wh", "0.0000"), F("startup_time_s", "0.000"), F("mean_settling_time_s", "0.000"),
+                F("ripple_voltage_pp_v", "0.00"), F("global_peak_time_share", "0.000"));
+        }
+        AnsiConsole.Write(table);
+    }
+}

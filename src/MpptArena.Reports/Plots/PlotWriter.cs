@@ -1,0 +1,169 @@
+using MpptArena.Reports.Summary;
+using MpptArena.Runs;
+using ScottPlot;
+
+namespace MpptArena.Reports.Plots;
+
+/// <summary>
+/// The PNG plots of a results folder. Reads the run result and the series CSVs; runs nothing.
+/// Every axis is labelled with its unit; the default size is 1200 x 800.
+/// </summary>
+public static class PlotWriter
+{
+    /// <summary>Default width [px].</summary>
+    public const int DefaultWidth = 1200;
+
+    /// <summary>Default height [px].</summary>
+    public const int DefaultHeight = 800;
+
+    /// <summary>Writes every plot for a run into <paramref name="folder"/>; returns the files written.</summary>
+    /// <param name="folder">Results folder.</param>
+    /// <param name="run">The run.</param>
+    /// <param name="summary">Its summary.</param>
+    /// <param name="series">Series rows per tracker name (may be empty when series were not written).</param>
+    /// <param name="width">Width [px].</param>
+    /// <param name="height">Height [px].</param>
+    public static IReadOnlyList<string> WriteAll(string folder, RunResult run, RunSummary summary,
+        IReadOnlyDictionary<string, IReadOnlyList<SeriesRow>> series, int width = DefaultWidth, int height = DefaultHeight)
+    {
+        var files = new List<string>();
+        if (series.Count > 0)
+        {
+            files.Add(Save(Power(series), Path.Combine(folder, "power.png"), width, height));
+            files.Add(Save(Voltage(series), Path.Combine(folder, "voltage.png"), width, height));
+            foreach (var snap in run.Snapshots)
+            {
+                string name = $"pv-curve-{snap.TimeS.ToString("0.###", System.Globalization.CultureInfo.InvariantCulture)}s.png";
+                files.Add(Save(Curve(snap, series), Path.Combine(folder, name), width, height));
+            }
+        }
+        files.Add(Save(EfficiencyBars(summary), Path.Combine(folder, "efficiency.png"), width, height));
+        if (summary.Trackers.Any(t => t.Windows.Any(w => w.SlopeWm2PerS is not null)))
+        {
+            files.Add(Save(RampEfficiency(summary), Path.Combine(folder, "ramp-efficiency.png"), width, height));
+        }
+        return files;
+    }
+
+    private static string Save(Plot plot, string path, int width, int height)
+    {
+        plot.SavePng(path, width, height);
+        return path;
+    }
+
+    /// <summary>Power of every tracker and the true MPP power against time.</summary>
+    public static Plot Power(IReadOnlyDictionary<string, IReadOnlyList<SeriesRow>> series)
+    {
+        var plot = new Plot();
+        var first = series.Values.First();
+        var mpp = plot.Add.ScatterLine(first.Select(r => r.TimeS).ToArray(), first.Select(r => r.MppPowerW).ToArray());
+        mpp.LegendText = "global MPP";
+        mpp.Color = Colors.Black;
+        mpp.LineWidth = 2;
+        mpp.LinePattern = LinePattern.Dashed;
+        foreach (var (name, rows) in series)
+        {
+            var line = plot.Add.ScatterLine(rows.Select(r => r.TimeS).ToArray(), rows.Select(r => r.PowerW).ToArray());
+            line.LegendText = name;
+            line.LineWidth = 1.5f;
+        }
+        plot.Title("Array power and the power available at the global MPP");
+        plot.XLabel("time [s]");
+        plot.YLabel("power [W]");
+        plot.ShowLegend(Alignment.LowerLeft);
+        return plot;
+    }
+
+    /// <summary>Operating voltage of every tracker and the voltage of the global MPP against time.</summary>
+    public static Plot Voltage(IReadOnlyDictionary<string, IReadOnlyList<SeriesRow>> series)
+    {
+        var plot = new Plot();
+        var first = series.Values.First();
+        var mpp = plot.Add.ScatterLine(first.Select(r => r.TimeS).ToArray(), first.Select(r => r.MppVoltageV).ToArray());
+        mpp.LegendText = "global MPP voltage";
+        mpp.Color = Colors.Black;
+        mpp.LineWidth = 2;
+        mpp.LinePattern = LinePattern.Dashed;
+        foreach (var (name, rows) in series)
+        {
+            var line = plot.Add.ScatterLine(rows.Select(r => r.TimeS).ToArray(), rows.Select(r => r.VoltageV).ToArray());
+            line.LegendText = name;
+            line.LineWidth = 1.5f;
+        }
+        plot.Title("Operating voltage against the voltage of the global MPP");
+        plot.XLabel("time [s]");
+        plot.YLabel("PV voltage [V]");
+        plot.ShowLegend(Alignment.LowerLeft);
+        return plot;
+    }
+
+    /// <summary>The P-V curve at one instant, its maxima, and each tracker's operating points around that instant.</summary>
+    public static Plot Curve(CurveSnapshot snap, IReadOnlyDictionary<string, IReadOnlyList<SeriesRow>> series, double windowS = 0.5)
+    {
+        var plot = new Plot();
+        var curve = plot.Add.ScatterLine(snap.VoltageV.ToArray(), snap.PowerW.ToArray());
+        curve.LegendText = "P-V curve";
+        curve.Color = Colors.Black;
+        curve.LineWidth = 2;
+        foreach (var p in snap.Peaks.Peaks)
+        {
+            plot.Add.Marker(p.VoltageV, p.PowerW, MarkerShape.OpenCircle, 14, Colors.Gray);
+        }
+        var g = plot.Add.Marker(snap.Peaks.Global.VoltageV, snap.Peaks.Global.PowerW, MarkerShape.FilledDiamond, 16, Colors.Red);
+        g.LegendText = "global MPP (circles: local maxima)";
+        foreach (var (name, rows) in series)
+        {
+            var near = rows.Where(r => Math.Abs(r.TimeS - snap.TimeS) <= windowS).ToList();
+            if (near.Count == 0) continue;
+            var pts = plot.Add.ScatterPoints(near.Select(r => r.VoltageV).ToArray(), near.Select(r => r.PowerW).ToArray());
+            pts.LegendText = $"{name} (t = {snap.TimeS - windowS:0.##} to {snap.TimeS + windowS:0.##} s)";
+            pts.MarkerSize = 6;
+        }
+        plot.Title($"P-V curve at t = {snap.TimeS:0.###} s with each tracker's operating points");
+        plot.XLabel("PV voltage [V]");
+        plot.YLabel("power [W]");
+        plot.Axes.SetLimitsY(0, snap.Peaks.Global.PowerW * 1.15);
+        plot.ShowLegend(Alignment.UpperLeft);
+        return plot;
+    }
+
+    /// <summary>Tracking efficiency per tracker as bars.</summary>
+    public static Plot EfficiencyBars(RunSummary summary)
+    {
+        var plot = new Plot();
+        var names = summary.Trackers.Select(t => t.Name).ToArray();
+        var values = summary.Trackers.Select(t => t.Scores.GetValueOrDefault("tracking_efficiency") ?? 0.0).ToArray();
+        var bars = values.Select((v, i) => new Bar { Position = i, Value = v * 100, FillColor = Palette(i) }).ToList();
+        plot.Add.Bars(bars);
+        var ticks = names.Select((n, i) => new Tick(i, n)).ToArray();
+        plot.Axes.Bottom.TickGenerator = new ScottPlot.TickGenerators.NumericManual(ticks);
+        double low = Math.Max(0, Math.Floor(values.Where(v => v > 0).DefaultIfEmpty(0).Min() * 100 - 5));
+        plot.Axes.SetLimitsY(low, 100.5);
+        plot.Title($"Tracking efficiency, {summary.Scenario.Name}");
+        plot.XLabel("tracker");
+        plot.YLabel("tracking efficiency [%]");
+        return plot;
+    }
+
+    /// <summary>Efficiency per ramp slope per tracker, for standard ramp sequences.</summary>
+    public static Plot RampEfficiency(RunSummary summary)
+    {
+        var plot = new Plot();
+        foreach (var t in summary.Trackers)
+        {
+            var ramps = t.Windows.Where(w => w.SlopeWm2PerS is not null).OrderBy(w => w.SlopeWm2PerS).ToList();
+            if (ramps.Count == 0) continue;
+            var line = plot.Add.Scatter(ramps.Select(w => Math.Log10(w.SlopeWm2PerS!.Value)).ToArray(), ramps.Select(w => w.Efficiency * 100).ToArray());
+            line.LegendText = t.Name;
+        }
+        var slopes = new[] { 0.5, 1, 2, 5, 10, 20, 50, 100 };
+        plot.Axes.Bottom.TickGenerator = new ScottPlot.TickGenerators.NumericManual(slopes.Select(s => new Tick(Math.Log10(s), s.ToString(System.Globalization.CultureInfo.InvariantCulture))).ToArray());
+        plot.Title("Dynamic tracking efficiency per irradiance ramp slope (EN 50530 sequences)");
+        plot.XLabel("ramp slope [W/m2/s] (log scale)");
+        plot.YLabel("tracking efficiency [%]");
+        plot.ShowLegend(Alignment.LowerLeft);
+        return plot;
+    }
+
+    private static Color Palette(int i) => new ScottPlot.Palettes.Category10().GetColor(i);
+}

@@ -1,0 +1,51 @@
+using System.Text.Json;
+using System.Text.Json.Serialization;
+
+namespace MpptArena.Reports.Summary;
+
+/// <summary>Reads and writes summary.json.</summary>
+public static class SummaryJson
+{
+    /// <summary>Serializer settings: snake_case keys, indented, nulls kept (a null score means "undefined", not "missing").</summary>
+    public static JsonSerializerOptions Options { get; } = new()
+    {
+        PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower,
+        DictionaryKeyPolicy = null,
+        WriteIndented = true,
+        DefaultIgnoreCondition = JsonIgnoreCondition.Never,
+        NumberHandling = JsonNumberHandling.Strict,
+    };
+
+    /// <summary>The JSON text of a summary.</summary>
+    public static string Serialize(RunSummary summary) => JsonSerializer.Serialize(summary, Options) + "\n";
+
+    /// <summary>A summary from JSON text; <paramref name="file"/> names the source in errors.</summary>
+    /// <exception cref="ArenaInputException">Not a summary of a known schema.</exception>
+    public static RunSummary Deserialize(string json, string file)
+    {
+        RunSummary? summary;
+        try
+        {
+            summary = JsonSerializer.Deserialize<RunSummary>(json, Options);
+        }
+        catch (JsonException ex)
+        {
+            throw new ArenaInputException($"not a valid summary: {ex.Message.Split(" Path:")[0]}", null,
+                new SourceLocation(file, (ex.LineNumber ?? 0) + 1, (ex.BytePositionInLine ?? 0) + 1));
+        }
+        if (summary is null) throw new ArenaInputException("not a valid summary: empty document", null, new SourceLocation(file, 1, 1));
+        if (summary.Schema != RunSummary.SchemaId)
+        {
+            throw new ArenaInputException($"summary schema '{summary.Schema}' is not supported; expected '{RunSummary.SchemaId}'", "schema", new SourceLocation(file, 1, 1));
+        }
+        return summary;
+    }
+
+    /// <summary>Reads a summary file, or summary.json inside a results folder.</summary>
+    public static RunSummary Read(string path)
+    {
+        string file = Directory.Exists(path) ? Path.Combine(path, "summary.json") : path;
+        if (!File.Exists(file)) throw new ArenaInputException($"summary '{file}' not found (give a summary.json or a results folder that holds one)", "file");
+        return Deserialize(File.ReadAllText(file), file);
+    }
+}
