@@ -13,22 +13,24 @@ namespace MpptArena.Plant;
 /// Averaged CCM models after R. W. Erickson, D. Maksimovic, Fundamentals of Power Electronics, 2nd ed.,
 /// Kluwer 2001, ch. 2 and 7. The inductor current is not allowed below zero (the diode blocks): the
 /// model then stays at i = 0 instead of entering the discontinuous mode's averaged equations.
-/// Voltage-reference control is cascaded as in average-current-mode firmware: an outer PI voltage
-/// loop (with feed-forward of the PV current) sets the converter input current; an inner proportional
-/// current loop with duty feed-forward sets the duty cycle. Gains follow from the requested
-/// bandwidths: Kv = 2 pi f_v C, Ki = Kv 2 pi f_v / 4, Kc = 2 pi f_i L. The inner loops see true values
-/// (their analog sensing is much faster than the tracker's ADC path).
+/// Voltage-reference control is cascaded as in average-current-mode firmware: an outer proportional
+/// voltage loop with feed-forward of the PV current sets the converter input current
+/// (i_in,ref = i_pv + Kv (v - v_ref)); an inner proportional current loop with duty feed-forward sets
+/// the duty cycle. With exact feed-forward both loops are first order: the PV voltage follows a
+/// reference step with tau_v = C/Kv and the inductor current its reference with tau_i = L/Kc, so no
+/// integrator is needed for the averaged model. Gains follow from the requested bandwidths:
+/// Kv = 2 pi f_v C, Kc = 2 pi f_i L. The inner loops see true values (their analog sensing is much
+/// faster than the tracker's ADC path).
 /// </remarks>
 public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
 {
     /// <summary>Converter parameters.</summary>
     protected ConverterSettings Settings { get; } = settings;
 
-    private double _v, _i, _duty, _integral, _pvCurrent;
+    private double _v, _i, _duty, _pvCurrent;
     private EnergyLedger _energy;
 
     private double Kv => 2 * Math.PI * Settings.VoltageLoopBandwidthHz * Settings.InputCapacitanceF;
-    private double Ki => Kv * 2 * Math.PI * Settings.VoltageLoopBandwidthHz / 4;
 
     /// <summary>Current-loop gain Kc [V/A] = 2 pi f_i L.</summary>
     protected double Kc => 2 * Math.PI * Settings.CurrentLoopBandwidthHz * Settings.InductanceH;
@@ -45,7 +47,6 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
     {
         _v = voltageV;
         _i = 0;
-        _integral = 0;
         _duty = Settings.MinDuty;
         _energy = default;
         _pvCurrent = 0;
@@ -89,13 +90,8 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
         }
         else
         {
-            double error = _v - command;
-            double inputCurrentRef = ipv + Kv * error + Ki * _integral;
-            double duty = DutyForInputCurrent(_v, _i, inputCurrentRef);
-            double clamped = Math.Clamp(duty, Settings.MinDuty, Settings.MaxDuty);
-            // Anti-windup: integrate only while the modulator is not saturated, or when it unwinds.
-            if (clamped == duty || Math.Sign(error) != Math.Sign(_integral)) _integral += error * dtS;
-            _duty = clamped;
+            double inputCurrentRef = ipv + Kv * (_v - command);
+            _duty = Math.Clamp(DutyForInputCurrent(_v, _i, inputCurrentRef), Settings.MinDuty, Settings.MaxDuty);
         }
 
         // Classical RK4 on (v, i, E_pv, E_out, E_loss) with d held.

@@ -20,8 +20,9 @@ public sealed class BoostFrontEnd(ConverterSettings settings) : AveragedConverte
     /// <inheritdoc/>
     protected override double DutyForInputCurrent(double v, double i, double inputCurrentRefA)
     {
-        // The inductor carries the input current. Choose (1 - d) V_bus = v + R_L i - Kc (i_ref - i).
-        double vOut = v + Settings.InductorResistanceOhm * i - Kc * (inputCurrentRefA - i);
+        // The inductor carries the input current. Choose (1 - d) V_bus = v - R_L i - Kc (i_ref - i),
+        // so that L di/dt = Kc (i_ref - i).
+        double vOut = v - Settings.InductorResistanceOhm * i - Kc * (inputCurrentRefA - i);
         return 1.0 - vOut / Settings.BusVoltageV;
     }
 }

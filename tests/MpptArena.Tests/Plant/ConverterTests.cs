@@ -1,0 +1,123 @@
+using MpptArena.Arrays;
+using MpptArena.Plant;
+using MpptArena.Trackers;
+
+namespace MpptArena.Tests.Plant;
+
+public class ConverterTests
+{
+    private static PreparedArrayCurve Curve(double irradiance = 1000)
+    {
+        var array = ReferenceModules.Array(10, 1);
+        return new PreparedArrayCurve(array.Solve(array.UniformConditions(irradiance, 25)));
+    }
+
+    private static void Hold(IFrontEnd f, PreparedArrayCurve curve, double command, TrackerCommandKind kind, double seconds, double h = 50e-6)
+    {
+        for (int n = 0; n < (int)(seconds / h); n++) f.Step(h, curve, command, kind);
+    }
+
+    private static double MeanVoltage(IFrontEnd f, PreparedArrayCurve curve, double duty)
+    {
+        double sum = 0;
+        const int n = 4000;
+        for (int k = 0; k < n; k++)
+        {
+            f.Step(50e-6, curve, duty, TrackerCommandKind.DutyCycle);
+            sum += f.PvVoltageV;
+        }
+        return sum / n;
+    }
+
+    [Theory]
+    [InlineData(0.5)]
+    [InlineData(0.55)]
+    public void BoostSteadyStateIsOneMinusDTimesBusVoltage(double duty)
+    {
+        // Source: Erickson & Maksimovic, Fundamentals of Power Electronics, 2nd ed., 2001, ch. 2: lossless boost in CCM, Vin = (1 - D) Vbus.
+        var boost = new BoostFrontEnd(new ConverterSettings(FrontEndKind.Boost, InductorResistanceOhm: 0, BusVoltageV: 700));
+        var curve = Curve();
+        boost.Reset(curve.OpenCircuitVoltageV);
+        Hold(boost, curve, duty, TrackerCommandKind.DutyCycle, 1.0);
+        // Without resistance the LC resonance is barely damped: compare the average over many periods.
+        Assert.Equal((1 - duty) * 700, MeanVoltage(boost, curve, duty), (1 - duty) * 700 * 1e-3);
+        Assert.True(boost.InductorCurrentA > 0, "must be in continuous conduction");
+    }
+
+    [Theory]
+    [InlineData(0.14)]
+    [InlineData(0.16)]
+    public void BuckSteadyStateIsDTimesInputVoltage(double duty)
+    {
+        // Source: Erickson & Maksimovic (2001), ch. 2: lossless buck in CCM, Vout = D Vin; here Vout is an ideal 48 V battery.
+        var buck = new BuckFrontEnd(new ConverterSettings(FrontEndKind.Buck, InductorResistanceOhm: 0, BatteryVoltageV: 48, BatteryResistanceOhm: 0));
+        var curve = Curve();
+        buck.Reset(curve.OpenCircuitVoltageV);
+        Hold(buck, curve, duty, TrackerCommandKind.DutyCycle, 1.0);
+        Assert.Equal(48.0, duty * MeanVoltage(buck, curve, duty), 48 * 1e-3);
+    }
+
+    [Theory]
+    [InlineData(FrontEndKind.Boost)]
+    [InlineData(FrontEndKind.Buck)]
+    public void VoltageLoopSettlesToAReferenceStepWithinItsDesignedTime(FrontEndKind kind)
+    {
+        // Design (AveragedConverter): with PV-current feed-forward the voltage loop is first order with
+        // tau = 1/(2 pi f_v); the current loop adds a lag of 1/(2 pi f_i). A first-order system reaches a
+        // 2 % band after ln(50) = 3.9 time constants (common practice: "4 tau"); allowed: 4 tau + 4 tau_i.
+        var settings = new ConverterSettings(kind, VoltageLoopBandwidthHz: 100, CurrentLoopBandwidthHz: 1000, BatteryVoltageV: 48);
+        var f = Plant.AveragedConverterFactory(settings);
+        var curve = Curve();
+        f.Reset(curve.OpenCircuitVoltageV);
+        Hold(f, curve, 300, TrackerCommandKind.VoltageReference, 0.2);
+        Assert.Equal(300, f.PvVoltageV, 0.5);
+        double tau = 1 / (2 * Math.PI * 100), tauI = 1 / (2 * Math.PI * 1000);
+        double designed = 4 * tau + 4 * tauI;
+        double h = 50e-6, t = 0, maxV = 0, settledAt = double.NaN;
+        for (int n = 0; n < (int)(0.05 / h); n++)
+        {
+            f.Step(h, curve, 320, TrackerCommandKind.VoltageReference);
+            t += h;
+            maxV = Math.Max(maxV, f.PvVoltageV);
+            bool inBand = Math.Abs(f.PvVoltageV - 320) <= 0.02 * 20;
+            if (inBand && double.IsNaN(settledAt)) settledAt = t;
+            if (!inBand) settledAt = double.NaN;
+        }
+        Assert.True(settledAt <= designed, $"settled after {settledAt * 1e3:F2} ms, designed {designed * 1e3:F2} ms");
+        Assert.True(maxV - 320 < 0.1 * 20, $"overshoot {maxV - 320:F2} V on a 20 V step");
+    }
+
+    [Theory]
+    [InlineData(FrontEndKind.Boost)]
+    [InlineData(FrontEndKind.Buck)]
+    public void EnergyBookkeepingCloses(FrontEndKind kind)
+    {
+        // Conservation of energy: PV energy = delivered + losses + change of stored energy, within 0.1 %.
+        var f = Plant.AveragedConverterFactory(new ConverterSettings(kind, InductorResistanceOhm: 0.2, BatteryVoltageV: 48, BatteryResistanceOhm: 0.1));
+        var curve = Curve(800);
+        f.Reset(curve.OpenCircuitVoltageV);
+        double stored0 = f.StoredJ;
+        for (int k = 0; k < 40; k++) Hold(f, curve, 250 + 5 * (k % 7), TrackerCommandKind.VoltageReference, 0.025);
+        var e = f.Energy;
+        double balance = e.DeliveredJ + e.LossJ + (f.StoredJ - stored0);
+        Assert.True(e.FromArrayJ > 1000);
+        Assert.True(Math.Abs(balance - e.FromArrayJ) / e.FromArrayJ < 1e-3, $"PV {e.FromArrayJ:F3} J, accounted {balance:F3} J");
+    }
+
+    [Fact]
+    public void IdealSourceNeverDrivesTheArrayBeyondOpenCircuit()
+    {
+        var ideal = new IdealSourceFrontEnd(new ConverterSettings(FrontEndKind.IdealSource));
+        var curve = Curve();
+        ideal.Reset(100);
+        Hold(ideal, curve, 900, TrackerCommandKind.VoltageReference, 0.1);
+        Assert.Equal(curve.OpenCircuitVoltageV, ideal.PvVoltageV, 1e-9);
+        Assert.True(ideal.PvCurrentA >= 0);
+    }
+}
+
+internal static class Plant
+{
+    public static AveragedConverter AveragedConverterFactory(ConverterSettings s) =>
+        s.Kind == FrontEndKind.Boost ? new BoostFrontEnd(s) : new BuckFrontEnd(s);
+}
