@@ -9,7 +9,7 @@ $env:DOTNET_CLI_TELEMETRY_OPTOUT = '1'
 $env:DOTNET_NOLOGO = '1'
 
 function Invoke-Cli([string[]] $CliArgs) {
-    dotnet build src/MpptArena.Cli/MpptArena.Cli.csproj -c Release -nologo -v quiet -clp:ErrorsOnly | Out-Host
+    dotnet build src/MpptArena.Cli/MpptArena.Cli.csproj -c Release -nologo -v quiet '-clp:ErrorsOnly;NoSummary' | Out-Host
     if ($LASTEXITCODE -ne 0) { exit $LASTEXITCODE }
     dotnet src/MpptArena.Cli/bin/Release/net10.0/mppt-arena.dll @CliArgs
     exit $LASTEXITCODE

@@ -9,7 +9,7 @@ cd "$(dirname "$0")"
 export DOTNET_CLI_TELEMETRY_OPTOUT=1 DOTNET_NOLOGO=1 DOTNET_SKIP_FIRST_TIME_EXPERIENCE=1
 
 cli() {
-  dotnet build src/MpptArena.Cli/MpptArena.Cli.csproj -c Release -nologo -v quiet -clp:ErrorsOnly >&2
+  dotnet build src/MpptArena.Cli/MpptArena.Cli.csproj -c Release -nologo -v quiet "-clp:ErrorsOnly;NoSummary" >&2
   dotnet src/MpptArena.Cli/bin/Release/net10.0/mppt-arena.dll "$@"
 }
 

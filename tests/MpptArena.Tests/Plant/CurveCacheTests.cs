@@ -1,0 +1,34 @@
+using MpptArena.Arrays;
+using MpptArena.Plant;
+
+namespace MpptArena.Tests.Plant;
+
+public class CurveCacheTests
+{
+    [Fact]
+    public void ReprepareRuleBoundsPowerError()
+    {
+        // ArrayCurveCache: between preparations each substring is within dG of its prepared irradiance, so by
+        // De Soto (2006) eq. 3 (IL linear in G) the current error is at most about n_parallel dG/1000 Isc_ref.
+        const double dG = 1.0;
+        var array = ReferenceModules.Array(10, 2);
+        var cache = new ArrayCurveCache(array, dG, 0.2);
+        var prepared = array.UniformConditions(700, 35);
+        prepared.IrradianceWm2[4] = 300;
+        Assert.True(cache.Update(prepared));
+        var drifted = prepared.Clone();
+        for (int k = 0; k < drifted.IrradianceWm2.Length; k++) drifted.IrradianceWm2[k] += dG * 0.999;
+        Assert.False(cache.Update(drifted));
+        var truth = array.Solve(drifted);
+        double iscRef = 9.5 * 2;
+        double bound = iscRef * dG / 1000 * 1.05;
+        double voc = truth.OpenCircuitVoltageV;
+        for (int i = 0; i <= 200; i++)
+        {
+            double v = voc * i / 200;
+            Assert.True(Math.Abs(cache.Curve.CurrentAtVoltage(v) - truth.CurrentAtVoltage(v)) <= bound, $"at {v:F1} V");
+        }
+        drifted.IrradianceWm2[0] += 0.01; // now beyond dG for substring 0
+        Assert.True(cache.Update(drifted));
+    }
+}
