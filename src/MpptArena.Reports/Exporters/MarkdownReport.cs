@@ -37,7 +37,7 @@ public static class MarkdownReport
             foreach (string w in windowNames)
             {
                 sb.Append("| ").Append(w).Append(" | ");
-                sb.Append(string.Join(" | ", s.Trackers.Select(t => t.Windows.FirstOrDefault(x => x.Name == w) is { } e ? e.Efficiency.ToString("0.0000", c) : "n/a")));
+                sb.Append(string.Join(" | ", s.Trackers.Select(t => t.Windows.FirstOrDefault(x => x.Name == w) is { Efficiency: { } e } ? e.ToString("0.0000", c) : "n/a")));
                 sb.Append(" |\n");
             }
         }

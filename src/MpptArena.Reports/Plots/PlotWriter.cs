@@ -151,9 +151,9 @@ public static class PlotWriter
         var plot = new Plot();
         foreach (var t in summary.Trackers)
         {
-            var ramps = t.Windows.Where(w => w.SlopeWm2PerS is not null).OrderBy(w => w.SlopeWm2PerS).ToList();
+            var ramps = t.Windows.Where(w => w.SlopeWm2PerS is not null && w.Efficiency is not null).OrderBy(w => w.SlopeWm2PerS).ToList();
             if (ramps.Count == 0) continue;
-            var line = plot.Add.Scatter(ramps.Select(w => Math.Log10(w.SlopeWm2PerS!.Value)).ToArray(), ramps.Select(w => w.Efficiency * 100).ToArray());
+            var line = plot.Add.Scatter(ramps.Select(w => Math.Log10(w.SlopeWm2PerS!.Value)).ToArray(), ramps.Select(w => w.Efficiency!.Value * 100).ToArray());
             line.LegendText = t.Name;
         }
         var slopes = new[] { 0.5, 1, 2, 5, 10, 20, 50, 100 };

@@ -101,5 +101,5 @@ public sealed record SettlingEntry(double EventS, string Label, double? Settling
 /// <param name="SlopeWm2PerS">Ramp slope [W/m2/s] or null.</param>
 /// <param name="EnergyWh">Energy taken [Wh].</param>
 /// <param name="AvailableWh">Energy available [Wh].</param>
-/// <param name="Efficiency">Ratio [-].</param>
-public sealed record WindowEntry(string Name, double StartS, double EndS, double? SlopeWm2PerS, double EnergyWh, double AvailableWh, double Efficiency);
+/// <param name="Efficiency">Ratio [-]; null when nothing was available.</param>
+public sealed record WindowEntry(string Name, double StartS, double EndS, double? SlopeWm2PerS, double EnergyWh, double AvailableWh, double? Efficiency);

@@ -126,7 +126,7 @@ public static class ScenarioLoader
         var windows = new List<ScoringWindow>();
         var environment = ReadEnvironment(Required(root, "environment", EnvironmentKeys),
             array, file, baseDirectory, windows);
-        var simulation = ReadSimulation(Required(root, "simulation", ["duration_s", "plant_step_us", "environment_step_ms", "seed", "reprepare_irradiance_w_m2", "reprepare_temperature_c", "series_interval_ms"]));
+        var simulation = ReadSimulation(Required(root, "simulation", ["duration_s", "plant_step_us", "environment_step_ms", "seed", "reprepare_irradiance_w_m2", "reprepare_temperature_c", "series_interval_ms"]), environment);
         var trackers = ReadTrackers(root, registry, simulation);
         var scoring = ReadScoring(root.Map("scoring", ["settling_band_fraction", "settling_hold_s", "static_allowance_s", "windows", "curve_snapshots_s"]), windows, simulation);
         return new Scenario(name, description, array, converter, sensors, environment, simulation, trackers, scoring);
@@ -251,10 +251,16 @@ public static class ScenarioLoader
         return new EnvironmentModel(irradiance, temperature, shading);
     }
 
-    private static SimulationSettings ReadSimulation(YamlMap s)
+    private static SimulationSettings ReadSimulation(YamlMap s, EnvironmentModel environment)
     {
         var d = new SimulationSettings(1);
-        double duration = s.Positive("duration_s");
+        // Without duration_s the run lasts as long as the irradiance and temperature profiles.
+        double profileEnd = Math.Max(environment.Irradiance.EndTimeS, environment.Temperature.Profile.EndTimeS);
+        if (!s.Has("duration_s") && profileEnd <= 0)
+        {
+            throw new ArenaInputException("missing required key 'duration_s' in 'scenario.simulation' (the profiles are constant, so they give no length): expected a number greater than zero", "duration_s", s.Location);
+        }
+        double duration = s.Positive("duration_s", profileEnd);
         double step = s.Number("plant_step_us", d.PlantStepS * 1e6, 1, 10_000) * 1e-6;
         double env = s.Number("environment_step_ms", d.EnvironmentStepS * 1e3, 0.001, 10_000) * 1e-3;
         if (env < step) throw s.Error(s.Node("environment_step_ms")!, "'environment_step_ms' must not be shorter than the plant step", "environment_step_ms");
@@ -308,6 +314,7 @@ public static class ScenarioLoader
                 var w = new YamlMap(item, s.File, $"{s.Path}.windows[{k++}]", ["name", "start_s", "end_s"]);
                 double start = w.Number("start_s", null, 0), end = w.Number("end_s", null, 0);
                 if (end <= start) throw w.Error(w.Node("end_s")!, "'end_s' must be after 'start_s'", "end_s");
+                if (start >= sim.DurationS) throw w.Error(w.Node("start_s")!, $"window starts at {start} s, after the run ends ({sim.DurationS} s)", "start_s");
                 windows.Add(new ScoringWindow(w.Text("name"), start, end));
             }
         }

@@ -135,13 +135,13 @@ public sealed class TrackerScorer
         const double jPerWh = 3600.0;
         var windows = _settings.AllWindows.Select((w, k) => new WindowScore(
             w.Name, w.StartS, w.EndS, w.SlopeWm2PerS, _windowEnergyJ[k] / jPerWh, _windowAvailableJ[k] / jPerWh,
-            Ratio(_windowEnergyJ[k], _windowAvailableJ[k]))).ToList();
+            _windowAvailableJ[k] > 0 ? _windowEnergyJ[k] / _windowAvailableJ[k] : null)).ToList();
         var groups = _settings.AllWindows.Select((w, k) => (w, k)).Where(x => x.w.Group is not null)
             .GroupBy(x => x.w.Group!)
             .Select(g =>
             {
                 double e = g.Sum(x => _windowEnergyJ[x.k]), a = g.Sum(x => _windowAvailableJ[x.k]);
-                return new WindowScore(g.Key, g.Min(x => x.w.StartS), g.Max(x => x.w.EndS), null, e / jPerWh, a / jPerWh, Ratio(e, a));
+                return new WindowScore(g.Key, g.Min(x => x.w.StartS), g.Max(x => x.w.EndS), null, e / jPerWh, a / jPerWh, a > 0 ? e / a : null);
             }).ToList();
         var settled = _settling.Where(s => s.SettlingTimeS is not null).Select(s => s.SettlingTimeS!.Value).ToList();
         return new TrackerScores

@@ -7,5 +7,5 @@ namespace MpptArena.Scoring;
 /// <param name="SlopeWm2PerS">Ramp slope of the window [W/m2/s], if a ramp block.</param>
 /// <param name="EnergyWh">Energy taken from the array [Wh].</param>
 /// <param name="AvailableWh">Energy available at the true global MPP [Wh].</param>
-/// <param name="Efficiency">EnergyWh / AvailableWh [-].</param>
-public sealed record WindowScore(string Name, double StartS, double EndS, double? SlopeWm2PerS, double EnergyWh, double AvailableWh, double Efficiency);
+/// <param name="Efficiency">EnergyWh / AvailableWh [-]; null when nothing was available (a dark window).</param>
+public sealed record WindowScore(string Name, double StartS, double EndS, double? SlopeWm2PerS, double EnergyWh, double AvailableWh, double? Efficiency);
