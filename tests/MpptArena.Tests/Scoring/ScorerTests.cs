@@ -70,9 +70,9 @@ public class ScorerTests
             new ScoringWindow("second", 1, 3, 20, "seq"),
         ]);
         var s = Score(t => (t <= 1 ? 900 : 1000, 300), 3, settings: settings);
-        Assert.Equal(0.9, s.Windows[0].Efficiency, 9);
-        Assert.Equal(1.0, s.Windows[1].Efficiency, 9);
-        Assert.Equal((900 * 1 + 1000 * 2) / 3000.0, s.Groups.Single().Efficiency, 9);
+        Assert.Equal(0.9, s.Windows[0].Efficiency!.Value, 9);
+        Assert.Equal(1.0, s.Windows[1].Efficiency!.Value, 9);
+        Assert.Equal((900 * 1 + 1000 * 2) / 3000.0, s.Groups.Single().Efficiency!.Value, 9);
     }
 
     [Fact]
