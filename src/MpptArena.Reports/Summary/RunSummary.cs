@@ -102,4 +102,5 @@ public sealed record SettlingEntry(double EventS, string Label, double? Settling
 /// <param name="EnergyWh">Energy taken [Wh].</param>
 /// <param name="AvailableWh">Energy available [Wh].</param>
 /// <param name="Efficiency">Ratio [-]; null when nothing was available.</param>
-public sealed record WindowEntry(string Name, double StartS, double EndS, double? SlopeWm2PerS, double EnergyWh, double AvailableWh, double? Efficiency);
+public sealed record WindowEntry(string Name, double StartS, double EndS,
+    [property: System.Text.Json.Serialization.JsonPropertyName("slope_w_m2_per_s")] double? SlopeWm2PerS, double EnergyWh, double AvailableWh, double? Efficiency);
