@@ -17,8 +17,10 @@ public sealed class ExactArrayCurve : IArrayCurve
     {
         _strings = strings;
         _stringCount = stringCount;
-        OpenCircuitVoltageV = FindOpenCircuitVoltage();
+        _openCircuitVoltageV = new Lazy<double>(FindOpenCircuitVoltage);
     }
+
+    private readonly Lazy<double> _openCircuitVoltageV;
 
     /// <summary>Distinct strings.</summary>
     public IReadOnlyList<StringModel> Strings => _strings;
@@ -27,7 +29,7 @@ public sealed class ExactArrayCurve : IArrayCurve
     public IReadOnlyList<int> StringCounts => _stringCount;
 
     /// <inheritdoc/>
-    public double OpenCircuitVoltageV { get; }
+    public double OpenCircuitVoltageV => _openCircuitVoltageV.Value;
 
     /// <inheritdoc/>
     public double CurrentAtVoltage(double voltageV)

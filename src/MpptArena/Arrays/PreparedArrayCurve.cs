@@ -11,24 +11,43 @@ public sealed class PreparedArrayCurve : IArrayCurve
     private readonly int[] _counts;
 
     /// <summary>
-    /// Relative current tolerance of the tabulation: the cubic may miss the exact curve by at most this
-    /// fraction of the largest substring short-circuit current at any interval's midpoint. 1e-6 keeps the
-    /// power error far below the 1e-4 of MPP power that scoring needs.
+    /// Relative current tolerance of the string tabulation: the cubic may miss the string's voltage sum by
+    /// at most this fraction of the largest substring short-circuit current at any interval's midpoint.
     /// </summary>
     public const double RelativeCurrentTolerance = 1e-6;
 
-    /// <summary>Prepares <paramref name="exact"/> for fast evaluation from slightly below 0 V to 1.1 Voc; beyond, linear extrapolation.</summary>
+    /// <summary>Voltage tolerance of each substring table [V].</summary>
+    public const double SubstringVoltageToleranceV = 2e-5;
+
+    /// <summary>
+    /// Prepares <paramref name="exact"/> for fast evaluation. Strings are tabulated from 2 % above the largest
+    /// substring short-circuit current down to minus five times it (about 7 % beyond open circuit);
+    /// beyond that the curve is extended linearly.
+    /// </summary>
     /// <param name="exact">The exact characteristic.</param>
     public PreparedArrayCurve(ExactArrayCurve exact)
     {
         Exact = exact;
-        OpenCircuitVoltageV = exact.OpenCircuitVoltageV;
-        double vMax = Math.Max(1.1 * exact.OpenCircuitVoltageV, 1.0);
-        double vMin = -0.05 * vMax;
+        double iscMax = Math.Max(exact.Strings.Max(s => s.MaxShortCircuitCurrentA), 1e-3);
+        double low = -5.0 * iscMax, high = 1.02 * iscMax + 1e-3;
         _strings = exact.Strings
-            .Select(s => new PreparedStringCurve(s, vMin, vMax, RelativeCurrentTolerance * Math.Max(s.MaxShortCircuitCurrentA, 1e-3)))
+            .Select(s => new PreparedStringCurve(s, low, high, RelativeCurrentTolerance * iscMax, SubstringVoltageToleranceV))
             .ToArray();
         _counts = exact.StringCounts.ToArray();
+        OpenCircuitVoltageV = FindOpenCircuitVoltage();
+    }
+
+    private double FindOpenCircuitVoltage()
+    {
+        double lo = _strings.Min(s => s.OpenCircuitVoltageV), hi = _strings.Max(s => s.OpenCircuitVoltageV);
+        if (hi <= 0) return 0;
+        if (hi - lo < 1e-12) return hi;
+        for (int k = 0; k < 100 && hi - lo > 1e-12 * hi; k++)
+        {
+            double mid = 0.5 * (lo + hi);
+            if (CurrentAtVoltage(mid) > 0) lo = mid; else hi = mid;
+        }
+        return 0.5 * (lo + hi);
     }
 
     /// <summary>The exact characteristic this was prepared from.</summary>

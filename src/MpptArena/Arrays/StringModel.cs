@@ -41,6 +41,9 @@ public sealed class StringModel
     /// <summary>Largest short-circuit current of any substring [A].</summary>
     public double MaxShortCircuitCurrentA => _maxShortCircuitA;
 
+    /// <summary>Blocking diode saturation current [A] and n Vt [V]; zeros when there is none.</summary>
+    public (double SaturationCurrentA, double IdealityVoltageV) BlockingDiode => (_blockingSaturationA, _blockingIdealityV);
+
     /// <summary>True when a blocking diode is in series.</summary>
     public bool HasBlockingDiode => _blockingSaturationA > 0;
 
