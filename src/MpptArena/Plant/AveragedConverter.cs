@@ -17,20 +17,23 @@ namespace MpptArena.Plant;
 /// voltage loop with feed-forward of the PV current sets the converter input current
 /// (i_in,ref = i_pv + Kv (v - v_ref)); an inner proportional current loop with duty feed-forward sets
 /// the duty cycle. With exact feed-forward both loops are first order: the PV voltage follows a
-/// reference step with tau_v = C/Kv and the inductor current its reference with tau_i = L/Kc, so no
-/// integrator is needed for the averaged model. Gains follow from the requested bandwidths:
-/// Kv = 2 pi f_v C, Kc = 2 pi f_i L. The inner loops see true values (their analog sensing is much
-/// faster than the tracker's ADC path).
+/// reference step with tau_v = C/Kv and the inductor current its reference with tau_i = L/Kc, so the
+/// averaged model needs no integrator; an optional PI zero at f_z adds Ki = Kv 2 pi f_z (with
+/// anti-windup) for users who want to see its effect. Gains follow from the requested bandwidths:
+/// Kv = 2 pi f_v C, Kc = 2 pi f_i L. The loops update the duty cycle at their own rate (every plant
+/// step by default) and hold it in between; they see true values (their analog sensing is much faster
+/// than the tracker's ADC path).
 /// </remarks>
 public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
 {
     /// <summary>Converter parameters.</summary>
     protected ConverterSettings Settings { get; } = settings;
 
-    private double _v, _i, _duty, _pvCurrent;
+    private double _v, _i, _duty, _pvCurrent, _integral, _sinceUpdateS;
     private EnergyLedger _energy;
 
     private double Kv => 2 * Math.PI * Settings.VoltageLoopBandwidthHz * Settings.InputCapacitanceF;
+    private double Ki => Kv * 2 * Math.PI * Settings.VoltageLoopIntegralHz;
 
     /// <summary>Current-loop gain Kc [V/A] = 2 pi f_i L.</summary>
     protected double Kc => 2 * Math.PI * Settings.CurrentLoopBandwidthHz * Settings.InductanceH;
@@ -48,6 +51,8 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
         _v = voltageV;
         _i = 0;
         _duty = Settings.MinDuty;
+        _integral = 0;
+        _sinceUpdateS = double.PositiveInfinity;
         _energy = default;
         _pvCurrent = 0;
     }
@@ -80,6 +85,9 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
         return Math.Max(Math.Max(rc, lc), Math.Max(voltageLoop, currentLoop));
     }
 
+    private double LoopPeriodS(double dtS) =>
+        Settings.VoltageLoopRateHz > 0 ? 1.0 / Settings.VoltageLoopRateHz - 0.5 * dtS : 0.0;
+
     /// <inheritdoc/>
     public void Step(double dtS, PreparedArrayCurve curve, double command, TrackerCommandKind kind)
     {
@@ -88,11 +96,18 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
         {
             _duty = Math.Clamp(command, Settings.MinDuty, Settings.MaxDuty);
         }
-        else
+        else if (_sinceUpdateS >= LoopPeriodS(dtS))
         {
-            double inputCurrentRef = ipv + Kv * (_v - command);
-            _duty = Math.Clamp(DutyForInputCurrent(_v, _i, inputCurrentRef), Settings.MinDuty, Settings.MaxDuty);
+            double error = _v - command;
+            double duty = DutyForInputCurrent(_v, _i, ipv + Kv * error + Ki * _integral);
+            double clamped = Math.Clamp(duty, Settings.MinDuty, Settings.MaxDuty);
+            // Anti-windup: integrate only while the modulator is not saturated, or when unwinding.
+            double period = double.IsPositiveInfinity(_sinceUpdateS) ? dtS : _sinceUpdateS;
+            if (Ki > 0 && (clamped == duty || Math.Sign(error) != Math.Sign(_integral))) _integral += error * period;
+            _duty = clamped;
+            _sinceUpdateS = 0;
         }
+        _sinceUpdateS += dtS;
 
         // Classical RK4 on (v, i, E_pv, E_out, E_loss) with d held.
         double d = _duty;

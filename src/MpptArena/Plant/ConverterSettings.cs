@@ -27,6 +27,8 @@ public enum FrontEndKind
 /// <param name="VoltageLoopBandwidthHz">Inner voltage loop crossover [Hz].</param>
 /// <param name="CurrentLoopBandwidthHz">Innermost inductor-current loop crossover [Hz].</param>
 /// <param name="MaxVoltageReferenceV">Highest voltage reference accepted [V].</param>
+/// <param name="VoltageLoopIntegralHz">Zero of the voltage loop's PI controller [Hz]; 0 for proportional with feed-forward only.</param>
+/// <param name="VoltageLoopRateHz">Rate at which the inner loops update the duty cycle [Hz]; 0 for every plant step.</param>
 public sealed record ConverterSettings(
     FrontEndKind Kind,
     double LagTimeConstantS = 2e-3,
@@ -40,4 +42,6 @@ public sealed record ConverterSettings(
     double MaxDuty = 0.95,
     double VoltageLoopBandwidthHz = 100,
     double CurrentLoopBandwidthHz = 1000,
-    double MaxVoltageReferenceV = 1000);
+    double MaxVoltageReferenceV = 1000,
+    double VoltageLoopIntegralHz = 0,
+    double VoltageLoopRateHz = 0);

@@ -201,7 +201,7 @@ public static class ScenarioLoader
     [
         "type", "lag_time_constant_ms", "input_capacitance_uf", "inductance_mh", "inductor_resistance_ohm", "bus_voltage_v",
         "battery_voltage_v", "battery_resistance_ohm", "min_duty", "max_duty", "voltage_loop_bandwidth_hz", "current_loop_bandwidth_hz",
-        "max_voltage_reference_v",
+        "max_voltage_reference_v", "voltage_loop_integral_hz", "voltage_loop_rate_hz",
     ];
 
     private static ConverterSettings ReadConverter(YamlMap c, SensorSettings sensors)
@@ -225,6 +225,8 @@ public static class ScenarioLoader
             VoltageLoopBandwidthHz = c.Positive("voltage_loop_bandwidth_hz", d.VoltageLoopBandwidthHz),
             CurrentLoopBandwidthHz = c.Positive("current_loop_bandwidth_hz", d.CurrentLoopBandwidthHz),
             MaxVoltageReferenceV = c.Positive("max_voltage_reference_v", sensors.Voltage.FullScale),
+            VoltageLoopIntegralHz = c.Number("voltage_loop_integral_hz", d.VoltageLoopIntegralHz, 0, 1e6),
+            VoltageLoopRateHz = c.Number("voltage_loop_rate_hz", d.VoltageLoopRateHz, 0, 1e7),
         };
     }
 

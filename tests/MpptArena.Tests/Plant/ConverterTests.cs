@@ -121,3 +121,16 @@ internal static class Plant
     public static AveragedConverter AveragedConverterFactory(ConverterSettings s) =>
         s.Kind == FrontEndKind.Boost ? new BoostFrontEnd(s) : new BuckFrontEnd(s);
 }
+
+public class ConverterLoopOptionTests
+{
+    [Fact]
+    public void IntegratingVoltageLoopStillReachesItsReference()
+    {
+        var curve = new PreparedArrayCurve(ReferenceModules.Array(10, 1).Solve(ReferenceModules.Array(10, 1).UniformConditions(900, 25)));
+        var boost = new BoostFrontEnd(new ConverterSettings(FrontEndKind.Boost, VoltageLoopIntegralHz: 10, VoltageLoopRateHz: 5000));
+        boost.Reset(curve.OpenCircuitVoltageV);
+        for (int n = 0; n < 10000; n++) boost.Step(50e-6, curve, 290, TrackerCommandKind.VoltageReference);
+        Assert.Equal(290, boost.PvVoltageV, 0.3);
+    }
+}
