@@ -9,8 +9,9 @@ $env:DOTNET_CLI_TELEMETRY_OPTOUT = '1'
 $env:DOTNET_NOLOGO = '1'
 
 function Invoke-Cli([string[]] $CliArgs) {
-    dotnet build src/MpptArena.Cli/MpptArena.Cli.csproj -c Release -nologo -v quiet '-clp:ErrorsOnly;NoSummary' | Out-Host
-    if ($LASTEXITCODE -ne 0) { exit $LASTEXITCODE }
+    # Build quietly; show the build log only when the build fails.
+    $log = dotnet build src/MpptArena.Cli/MpptArena.Cli.csproj -c Release -nologo -v quiet 2>&1
+    if ($LASTEXITCODE -ne 0) { $log | Out-Host; exit 3 }
     dotnet src/MpptArena.Cli/bin/Release/net10.0/mppt-arena.dll @CliArgs
     exit $LASTEXITCODE
 }

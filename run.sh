@@ -9,7 +9,14 @@ cd "$(dirname "$0")"
 export DOTNET_CLI_TELEMETRY_OPTOUT=1 DOTNET_NOLOGO=1 DOTNET_SKIP_FIRST_TIME_EXPERIENCE=1
 
 cli() {
-  dotnet build src/MpptArena.Cli/MpptArena.Cli.csproj -c Release -nologo -v quiet "-clp:ErrorsOnly;NoSummary" >&2
+  # Build quietly; show the build log only when the build fails.
+  log=$(mktemp)
+  if ! dotnet build src/MpptArena.Cli/MpptArena.Cli.csproj -c Release -nologo -v quiet >"$log" 2>&1; then
+    cat "$log" >&2
+    rm -f "$log"
+    exit 3
+  fi
+  rm -f "$log"
   dotnet src/MpptArena.Cli/bin/Release/net10.0/mppt-arena.dll "$@"
 }
 

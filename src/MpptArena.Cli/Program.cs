@@ -14,7 +14,7 @@ internal static class Program
           compare BASELINE CURRENT compare two summaries (files or results folders); exit 1 on regression
           trackers                 list tracker kinds and their parameters
           validate SCENARIO.yaml...check scenario files without running them
-          new-tracker NAME         scaffold a C# tracker project
+          new-tracker NAME         scaffold a C# tracker project (--out DIR)
           sweep SWEEP.yaml         run a parameter sweep (with --shard K/N for one part of it)
           merge SHARD_DIR...       join sweep shards into one result
 
@@ -38,6 +38,7 @@ internal static class Program
                 "compare" => CompareCommand.Execute(rest),
                 "trackers" => TrackersCommand.Execute(rest),
                 "validate" => ValidateCommand.Execute(rest),
+                "new-tracker" => NewTrackerCommand.Execute(rest),
                 "--version" => Version(),
                 _ => throw new ArenaInputException($"unknown command '{args[0]}'; run 'mppt-arena --help' for the list", "command"),
             };

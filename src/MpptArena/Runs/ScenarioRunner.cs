@@ -118,8 +118,8 @@ public sealed class ScenarioRunner
                 lane.Sensors.OnPlantStep(stepInSample, v, i);
                 if (stepInSample == lane.StepsPerSample - 1)
                 {
-                    var (vc, ic, vs, cs) = lane.Sensors.TakeSample();
-                    lane.Sample(new TrackerMeasurement(t, vs, cs, vc, ic, lane.Command));
+                    var (vc, ic, vs, cs, conversions) = lane.Sensors.TakeSample();
+                    lane.Sample(new TrackerMeasurement(t, vs, cs, vc, ic, lane.Command, conversions));
                 }
             }
             if (n % reportEvery == 0)
@@ -133,6 +133,7 @@ public sealed class ScenarioRunner
         var results = lanes.Select(lane =>
         {
             lane.Sink?.Dispose();
+            (lane.Tracker as IDisposable)?.Dispose();
             var scores = lane.Scorer.Finish(end);
             double meanNs = lane.Calls > 0 ? lane.ComputeTicks * 1e9 / Stopwatch.Frequency / lane.Calls : 0;
             return new TrackerResult(lane.Spec.Name, lane.Spec.Descriptor.Kind, lane.Spec.SamplePeriodS, lane.Spec.Settings.All,

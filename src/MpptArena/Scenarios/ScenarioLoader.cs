@@ -127,7 +127,7 @@ public static class ScenarioLoader
         var environment = ReadEnvironment(Required(root, "environment", EnvironmentKeys),
             array, file, baseDirectory, windows);
         var simulation = ReadSimulation(Required(root, "simulation", ["duration_s", "plant_step_us", "environment_step_ms", "seed", "reprepare_irradiance_w_m2", "reprepare_temperature_c", "series_interval_ms"]), environment);
-        var trackers = ReadTrackers(root, registry, simulation);
+        var trackers = ReadTrackers(root, registry, simulation, baseDirectory);
         var scoring = ReadScoring(root.Map("scoring", ["settling_band_fraction", "settling_hold_s", "static_allowance_s", "windows", "curve_snapshots_s"]), windows, simulation);
         return new Scenario(name, description, array, converter, sensors, environment, simulation, trackers, scoring);
     }
@@ -273,7 +273,7 @@ public static class ScenarioLoader
             s.Positive("reprepare_temperature_c", d.ReprepareTemperatureC), s.Number("series_interval_ms", d.SeriesIntervalS * 1e3, 0) * 1e-3);
     }
 
-    private static IReadOnlyList<TrackerSpec> ReadTrackers(YamlMap root, TrackerRegistry registry, SimulationSettings sim)
+    private static IReadOnlyList<TrackerSpec> ReadTrackers(YamlMap root, TrackerRegistry registry, SimulationSettings sim, string baseDirectory)
     {
         var seq = root.Sequence("trackers") ?? throw new ArenaInputException("missing required list 'trackers' in 'scenario'", "trackers", root.Location);
         if (seq.Children.Count == 0) throw root.Error(seq, "'trackers' is empty: name at least one tracker", "trackers");
@@ -281,10 +281,11 @@ public static class ScenarioLoader
         int index = 0;
         foreach (var item in seq.Children)
         {
-            var t = new YamlMap(item, root.File, $"scenario.trackers[{index++}]", ["name", "type", "period_ms", "parameters"]);
+            var t = new YamlMap(item, root.File, $"scenario.trackers[{index++}]", ["name", "type", "period_ms", "parameters", "library"]);
             string kind = t.Text("type");
-            var descriptor = registry.Find(kind)
-                             ?? throw t.Error(t.Node("type")!, $"unknown tracker type '{kind}'; known types: {string.Join(", ", registry.All.Select(d => d.Kind))}", "type");
+            var descriptor = kind == "native" ? NativeDescriptor(t, baseDirectory)
+                : registry.Find(kind) ?? throw t.Error(t.Node("type")!, $"unknown tracker type '{kind}'; known types: native (with 'library'), {string.Join(", ", registry.All.Select(d => d.Kind))}", "type");
+            if (kind != "native" && t.Has("library")) throw t.Error(t.Node("library")!, "'library' goes with 'type: native' (a C tracker in a shared library)", "library");
             string name = t.Text("name", kind);
             if (specs.Any(s => s.Name == name)) throw t.Error(t.Node("name") ?? item, $"tracker name '{name}' is used twice; names must be unique", "name");
             double periodS = t.Number("period_ms", 10, 0.001, 3_600_000) * 1e-3;
@@ -302,6 +303,20 @@ public static class ScenarioLoader
             specs.Add(new TrackerSpec(name, descriptor, settings, periodS));
         }
         return specs;
+    }
+
+    private static TrackerDescriptor NativeDescriptor(YamlMap t, string baseDirectory)
+    {
+        string rel = t.Text("library");
+        string full = Path.IsPathRooted(rel) ? rel : Path.Combine(baseDirectory, rel);
+        try
+        {
+            return Trackers.Native.NativeTrackerLibrary.Load(full).Descriptor;
+        }
+        catch (ArenaInputException ex)
+        {
+            throw new ArenaInputException(ex.Reason, "library", t.Where(t.Node("library")!));
+        }
     }
 
     private static ScoringSettings ReadScoring(YamlMap? s, List<ScoringWindow> windows, SimulationSettings sim)

@@ -38,11 +38,12 @@ public sealed class SensorChain
     }
 
     /// <summary>Averaged codes and scaled values of the sample just completed; clears the sums.</summary>
-    public (double VoltageCode, double CurrentCode, double VoltageV, double CurrentA) TakeSample()
+    public (double VoltageCode, double CurrentCode, double VoltageV, double CurrentA, int Conversions) TakeSample()
     {
-        double vc = _count > 0 ? (double)_vSum / _count : 0, ic = _count > 0 ? (double)_iSum / _count : 0;
+        int n = _count;
+        double vc = n > 0 ? (double)_vSum / n : 0, ic = n > 0 ? (double)_iSum / n : 0;
         _vSum = _iSum = 0;
         _count = 0;
-        return (vc, ic, _voltage.Scale(vc), _current.Scale(ic));
+        return (vc, ic, _voltage.Scale(vc), _current.Scale(ic), n);
     }
 }

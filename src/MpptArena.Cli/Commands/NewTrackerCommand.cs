@@ -1,0 +1,19 @@
+using MpptArena.Cli.Scaffolding;
+
+namespace MpptArena.Cli.Commands;
+
+/// <summary>mppt-arena new-tracker NAME [--out DIR]: scaffolds a C# tracker project that builds and scores out of the box.</summary>
+internal static class NewTrackerCommand
+{
+    public static int Execute(string[] args)
+    {
+        var a = new ArgumentReader(args, "new-tracker", ["--out"], []);
+        a.RequirePositional(1, "mppt-arena new-tracker NAME [--out DIR]");
+        string name = a.Positional[0];
+        string folder = a.Option("--out") ?? name;
+        var files = TrackerScaffold.Write(name, folder);
+        foreach (string f in files) Console.WriteLine($"wrote {f}");
+        Console.WriteLine($"next: cd {folder} && dotnet test tests && dotnet build src -c Release && mppt-arena run scenario.yaml");
+        return ExitCodes.Ok;
+    }
+}
