@@ -39,6 +39,8 @@ internal static class Program
                 "trackers" => TrackersCommand.Execute(rest),
                 "validate" => ValidateCommand.Execute(rest),
                 "new-tracker" => NewTrackerCommand.Execute(rest),
+                "sweep" => SweepCommand.Execute(rest),
+                "merge" => MergeCommand.Execute(rest),
                 "--version" => Version(),
                 _ => throw new ArenaInputException($"unknown command '{args[0]}'; run 'mppt-arena --help' for the list", "command"),
             };

@@ -1,0 +1,152 @@
+using System.Globalization;
+using System.Text;
+using System.Text.Json;
+using MpptArena.Cli.Terminal;
+using MpptArena.Reports.Summary;
+using MpptArena.Reports.Sweeps;
+using MpptArena.Sweeps;
+using Spectre.Console;
+
+namespace MpptArena.Cli.Commands;
+
+/// <summary>mppt-arena sweep SWEEP.yaml: runs (a shard of) a parameter sweep in parallel, resumable; or tunes with --tune.</summary>
+internal static class SweepCommand
+{
+    public const string Usage = "mppt-arena sweep SWEEP.yaml [--out DIR] [--shard K/N] [--threads N] [--tune] [--no-plots] [--plugin DLL]... [--quiet]";
+
+    public static int Execute(string[] args)
+    {
+        var a = new ArgumentReader(args, "sweep", ["--out", "--shard", "--threads", "--plugin"], ["--tune", "--no-plots", "--quiet"]);
+        a.RequirePositional(1, Usage);
+        var sweep = SweepLoader.Load(a.Positional[0], Plugins.Registry(a.Options("--plugin")));
+        if (ScoreCatalog.Find(sweep.ObjectiveScore) is null)
+        {
+            throw new ArenaInputException($"objective '{sweep.ObjectiveScore}' is not a score; known: {string.Join(", ", ScoreCatalog.All.Select(s => s.Key))}", "objective");
+        }
+        int threads = a.Option("--threads") is { } t
+            ? (int.TryParse(t, out int n) && n >= 1 ? n : throw new ArenaInputException($"--threads '{t}' must be a whole number of at least 1", "--threads"))
+            : System.Environment.ProcessorCount;
+        if (a.Flag("--tune")) return Tune(sweep, a, threads);
+
+        var all = SweepPlanner.Cases(sweep);
+        var (shard, count, source) = ShardOption.Resolve(a.Option("--shard"), System.Environment.GetEnvironmentVariable);
+        var mine = SweepPlanner.Shard(all, shard, count);
+        string output = a.Option("--out") ?? Path.Combine("results", count == 1 ? $"sweep-{sweep.Name}" : $"sweep-{sweep.Name}-shard-{shard}-of-{count}");
+        Directory.CreateDirectory(output);
+        string digest = SweepStore.Digest(all);
+        if (File.Exists(Path.Combine(output, "sweep.json")))
+        {
+            var existing = SweepStore.ReadManifest(output);
+            if (existing.SweepDigest != digest || existing.Shard != shard || existing.ShardCount != count)
+            {
+                throw new ArenaInputException($"'{output}' holds another sweep or shard ({existing.Name} {existing.Shard}/{existing.ShardCount}); choose another --out", "--out");
+            }
+        }
+        SweepStore.WriteManifest(output, new SweepManifest
+        {
+            Schema = SweepManifest.SchemaId, Name = sweep.Name, SweepDigest = digest, TotalCases = all.Count, Shard = shard, ShardCount = count,
+            ShardCases = mine.Count, Objective = sweep.ObjectiveScore, HeatmapX = sweep.HeatmapX, HeatmapY = sweep.HeatmapY,
+        });
+        var done = SweepStore.ReadAll(output);
+        var todo = mine.Where(c => !done.ContainsKey(c.Id)).ToList();
+        Console.WriteLine($"{sweep.Name}: {all.Count} cases in all; shard {shard}/{count} ({source}) has {mine.Count}, {mine.Count - todo.Count} already done, running {todo.Count} on {threads} threads");
+        Run(sweep, todo, threads, output, a.Flag("--quiet"));
+
+        if (count == 1)
+        {
+            var results = SweepStore.ReadAll(output).Values.Where(r => mine.Any(c => c.Id == r.CaseId)).ToList();
+            SweepReport.Write(output, results, sweep.ObjectiveScore, sweep.HeatmapX, sweep.HeatmapY, !a.Flag("--no-plots"));
+            if (!a.Flag("--quiet")) Console.Write(File.ReadAllText(Path.Combine(output, "best.md")));
+        }
+        else
+        {
+            Console.WriteLine($"shard done; join the shards with: mppt-arena merge <shard folders...> --out DIR");
+        }
+        Console.WriteLine($"results: {output}");
+        return ExitCodes.Ok;
+    }
+
+    private static void Run(SweepDefinition sweep, IReadOnlyList<SweepCase> todo, int threads, string output, bool quiet)
+    {
+        if (todo.Count == 0) return;
+        if (quiet || !ConsoleMode.Interactive)
+        {
+            SweepExecutor.RunAll(sweep, todo, threads, (c, r) => SweepStore.Write(output, SweepStore.ToResult(c, r)));
+            return;
+        }
+        AnsiConsole.Progress()
+            .Columns(new TaskDescriptionColumn(), new ProgressBarColumn(), new PercentageColumn(), new ElapsedTimeColumn(), new RemainingTimeColumn())
+            .Start(ctx =>
+            {
+                var task = ctx.AddTask($"{todo.Count} cases", maxValue: todo.Count);
+                SweepExecutor.RunAll(sweep, todo, threads, (c, r) =>
+                {
+                    SweepStore.Write(output, SweepStore.ToResult(c, r));
+                    task.Increment(1);
+                });
+            });
+    }
+
+    private static int Tune(SweepDefinition sweep, ArgumentReader a, int threads)
+    {
+        var tune = sweep.Tune ?? throw new ArenaInputException("--tune needs a 'tune' section in the sweep file", "tune");
+        if (ScoreCatalog.Find(tune.Score) is null) throw new ArenaInputException($"tune score '{tune.Score}' is not a score", "tune");
+        var tracker = sweep.Trackers.First(t => t.Name == tune.TrackerName);
+        var declared = tune.Parameters.Select(p => tracker.Descriptor.Parameters.First(d => d.Name == p)).ToList();
+        // Search box: the sweep's own range of a parameter when it sweeps it, else its declared range.
+        var min = declared.Select(p => tracker.Axes.FirstOrDefault(x => x.Name == p.Name)?.Min ?? p.Min).ToList();
+        var max = declared.Select(p => tracker.Axes.FirstOrDefault(x => x.Name == p.Name)?.Max ?? p.Max).ToList();
+        var start = declared.Select((p, k) => Math.Clamp(tracker.Fixed.GetValueOrDefault(p.Name, p.Default), min[k], max[k])).ToList();
+        var baseParameters = tracker.Fixed.Where(kv => !tune.Parameters.Contains(kv.Key))
+            .Concat(tracker.Axes.Where(x => !tune.Parameters.Contains(x.Name) && x.Name != "period_ms").Select(x => KeyValuePair.Create(x.Name, x.Values[0])))
+            .ToDictionary(kv => kv.Key, kv => kv.Value);
+        double period = tracker.Axes.FirstOrDefault(x => x.Name == "period_ms")?.Values[0] ?? tracker.PeriodMs;
+        int evaluation = 0;
+        double Objective(IReadOnlyList<double> values)
+        {
+            var parameters = new Dictionary<string, double>(baseParameters);
+            for (int k = 0; k < values.Count; k++) parameters[tune.Parameters[k]] = values[k];
+            var sorted = parameters.OrderBy(kv => kv.Key, StringComparer.Ordinal).ToList();
+            var cases = sweep.Scenarios.Select((s, i) => new SweepCase(i, s.Name, tracker.Name, tracker.Descriptor.Kind, period, sorted)).ToList();
+            var scores = new double[cases.Count];
+            SweepExecutor.RunAll(sweep, cases, threads, (c, r) =>
+            {
+                var t = r.Trackers.Single();
+                double? v = t.Scores is null ? null : ScoreCatalog.ToDictionary(t.Scores).GetValueOrDefault(tune.Score);
+                scores[c.ScenarioIndex] = v ?? (tune.Maximise ? double.NegativeInfinity : double.PositiveInfinity);
+            });
+            double aggregate = tune.WorstCase ? (tune.Maximise ? scores.Min() : scores.Max()) : scores.Average();
+            evaluation++;
+            if (!a.Flag("--quiet"))
+            {
+                Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"evaluation {evaluation}: {string.Join(", ", tune.Parameters.Select((p, k) => $"{p}={values[k]:G6}"))} -> {tune.Score} {aggregate:G6}"));
+            }
+            double f = tune.Maximise ? -aggregate : aggregate;
+            return double.IsFinite(f) ? f : 1e30;
+        }
+        var (best, bestObjective, history) = ParameterTuner.Minimise(Objective, min, max, start, tune.MaxEvaluations);
+        string output = a.Option("--out") ?? Path.Combine("results", $"tune-{sweep.Name}");
+        Directory.CreateDirectory(output);
+        double bestScore = tune.Maximise ? -bestObjective : bestObjective;
+        var doc = new
+        {
+            tracker = tracker.Name,
+            score = tune.Score,
+            goal = tune.Maximise ? "maximise" : "minimise",
+            over = tune.WorstCase ? "worst" : "mean",
+            best = tune.Parameters.Select((p, k) => new { name = p, value = best[k] }),
+            best_score = bestScore,
+            evaluations = history.Select(h => new { values = h.Values, score = tune.Maximise ? -h.Objective : h.Objective }),
+        };
+        File.WriteAllText(Path.Combine(output, "tune.json"), JsonSerializer.Serialize(doc, new JsonSerializerOptions { WriteIndented = true }) + "\n");
+        var md = new StringBuilder($"# Tuning {tracker.Name}\n\n");
+        md.Append(CultureInfo.InvariantCulture, $"{(tune.Maximise ? "Maximised" : "Minimised")} the {(tune.WorstCase ? "worst" : "mean")} `{tune.Score}` over {sweep.Scenarios.Count} scenario(s) with Nelder-Mead (MathNet.Numerics), {history.Count} evaluations.\n\n");
+        md.Append("| parameter | best | searched from | to |\n|---|---:|---:|---:|\n");
+        for (int k = 0; k < best.Count; k++) md.Append(CultureInfo.InvariantCulture, $"| {tune.Parameters[k]} | {best[k]:G6} | {min[k]:G6} | {max[k]:G6} |\n");
+        md.Append(CultureInfo.InvariantCulture, $"\nBest {tune.Score}: {bestScore:G6}\n");
+        File.WriteAllText(Path.Combine(output, "tune.md"), md.ToString());
+        Console.Write(md.ToString());
+        Console.WriteLine($"results: {output}");
+        return ExitCodes.Ok;
+    }
+}

@@ -1,0 +1,13 @@
+namespace MpptArena.Sweeps;
+
+/// <summary>The values one swept quantity takes: a list, a linear range with a step, or a logarithmic range.</summary>
+/// <param name="Name">Parameter name, or "period_ms" for the sample period.</param>
+/// <param name="Values">Grid values, ascending.</param>
+/// <param name="Min">Lowest value (for random and Latin-hypercube sampling).</param>
+/// <param name="Max">Highest value.</param>
+/// <param name="Logarithmic">True to sample in log space.</param>
+public sealed record SweepAxis(string Name, IReadOnlyList<double> Values, double Min, double Max, bool Logarithmic)
+{
+    /// <summary>The value at a unit-interval coordinate u in [0, 1] (for sampling).</summary>
+    public double At(double u) => Logarithmic ? Math.Exp(Math.Log(Min) + u * (Math.Log(Max) - Math.Log(Min))) : Min + u * (Max - Min);
+}

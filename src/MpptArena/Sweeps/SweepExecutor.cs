@@ -1,0 +1,31 @@
+using MpptArena.Runs;
+using MpptArena.Scenarios;
+using MpptArena.Trackers;
+
+namespace MpptArena.Sweeps;
+
+/// <summary>
+/// Runs sweep cases in parallel. Each case is an independent, seeded run, so results do not depend on
+/// the number of threads or the order of completion; callers sort what they aggregate.
+/// </summary>
+public static class SweepExecutor
+{
+    /// <summary>The scenario of a case: the suite's scenario with only the case's tracker.</summary>
+    public static Scenario ScenarioFor(SweepDefinition sweep, SweepCase c)
+    {
+        var tracker = sweep.Trackers.First(t => t.Name == c.TrackerName);
+        var settings = new TrackerSettings(tracker.Descriptor.Parameters, c.Parameters.ToDictionary(kv => kv.Key, kv => kv.Value));
+        var spec = new TrackerSpec(c.TrackerName, tracker.Descriptor, settings, c.PeriodMs * 1e-3);
+        return sweep.Scenarios[c.ScenarioIndex] with { Trackers = [spec] };
+    }
+
+    /// <summary>Runs one case.</summary>
+    public static RunResult Run(SweepDefinition sweep, SweepCase c) => new ScenarioRunner().Run(ScenarioFor(sweep, c));
+
+    /// <summary>Runs <paramref name="cases"/> on up to <paramref name="threads"/> threads, calling <paramref name="finished"/> as each completes (from any thread).</summary>
+    public static void RunAll(SweepDefinition sweep, IReadOnlyList<SweepCase> cases, int threads, Action<SweepCase, RunResult> finished, CancellationToken cancel = default)
+    {
+        var options = new ParallelOptions { MaxDegreeOfParallelism = Math.Max(1, threads), CancellationToken = cancel };
+        Parallel.ForEach(cases, options, c => finished(c, Run(sweep, c)));
+    }
+}

@@ -1,0 +1,215 @@
+using MpptArena.Scenarios;
+using MpptArena.Trackers;
+using MpptArena.Trackers.Native;
+using YamlDotNet.RepresentationModel;
+
+namespace MpptArena.Sweeps;
+
+/// <summary>
+/// Reads a sweep file: a scenario suite (files or folders), trackers with swept parameters (a list, a
+/// range with a step, or a logarithmic range), sampling, objective, heat-map axes and optional tuning.
+/// Errors carry file, line and column like scenario errors.
+/// </summary>
+public static class SweepLoader
+{
+    private static readonly string[] TopKeys = ["name", "scenarios", "trackers", "plugins", "sampling", "objective", "heatmap", "tune"];
+
+    /// <summary>Loads a sweep file.</summary>
+    public static SweepDefinition Load(string path, TrackerRegistry registry)
+    {
+        if (!File.Exists(path)) throw new ArenaInputException($"sweep file '{path}' not found", "file");
+        string dir = Path.GetDirectoryName(Path.GetFullPath(path)) ?? ".";
+        var stream = new YamlStream();
+        try
+        {
+            stream.Load(new StringReader(File.ReadAllText(path)));
+        }
+        catch (YamlDotNet.Core.YamlException ex)
+        {
+            throw new ArenaInputException($"not valid YAML: {ex.InnerException?.Message ?? ex.Message}", null, new SourceLocation(path, ex.Start.Line, ex.Start.Column));
+        }
+        if (stream.Documents.Count == 0) throw new ArenaInputException("the file is empty: expected a sweep mapping", null, new SourceLocation(path, 1, 1));
+        var root = new YamlMap(stream.Documents[0].RootNode, path, "sweep", TopKeys);
+        string name = root.Text("name");
+        if (name.Length == 0 || name.Any(c => !(char.IsAsciiLetterOrDigit(c) || c is '-' or '_')))
+        {
+            throw root.Error(root.Node("name")!, $"'name' = '{name}' must use only letters, digits, '-' and '_'", "name");
+        }
+        if (root.Sequence("plugins") is { } plugins)
+        {
+            registry = registry.Clone();
+            foreach (var p in plugins.Children)
+            {
+                string rel = root.Scalar(p, "plugins");
+                try
+                {
+                    TrackerPluginLoader.LoadInto(registry, Path.IsPathRooted(rel) ? rel : Path.Combine(dir, rel));
+                }
+                catch (ArenaInputException ex)
+                {
+                    throw new ArenaInputException(ex.Reason, "plugins", root.Where(p));
+                }
+            }
+        }
+        var scenarios = ReadScenarios(root, dir, registry);
+        var trackers = ReadTrackers(root, dir, registry);
+        var sampling = ReadSampling(root);
+        string objective = root.Text("objective", "tracking_efficiency");
+        string? hx = null, hy = null;
+        if (root.Map("heatmap", ["x", "y"]) is { } h)
+        {
+            hx = h.Text("x");
+            hy = h.Text("y");
+        }
+        var tune = ReadTune(root, trackers);
+        return new SweepDefinition(name, scenarios, trackers, sampling, objective, hx, hy, tune);
+    }
+
+    private static List<Scenario> ReadScenarios(YamlMap root, string dir, TrackerRegistry registry)
+    {
+        var seq = root.Sequence("scenarios") ?? throw new ArenaInputException("missing required list 'scenarios' in 'sweep': files or folders of scenarios", "scenarios", root.Location);
+        var list = new List<Scenario>();
+        foreach (var node in seq.Children)
+        {
+            string rel = root.Scalar(node, "scenarios", "a scenario file or folder");
+            string full = Path.IsPathRooted(rel) ? rel : Path.Combine(dir, rel);
+            IEnumerable<string> files;
+            if (Directory.Exists(full)) files = Directory.GetFiles(full, "*.yaml").Order(StringComparer.Ordinal).Where(f => !IsPlantFile(f));
+            else if (File.Exists(full)) files = [full];
+            else throw root.Error(node, $"scenario file or folder '{rel}' not found", "scenarios");
+            foreach (string f in files) list.Add(ScenarioLoader.Load(f, registry));
+        }
+        if (list.Count == 0) throw root.Error(seq, "'scenarios' names no scenario files", "scenarios");
+        var twice = list.GroupBy(s => s.Name).FirstOrDefault(g => g.Count() > 1);
+        if (twice is not null) throw root.Error(seq, $"scenario name '{twice.Key}' appears twice in the suite", "scenarios");
+        return list;
+    }
+
+    private static bool IsPlantFile(string file) =>
+        File.ReadLines(file).Any(l => l.StartsWith("conditions:", StringComparison.Ordinal));
+
+    private static List<SweepTracker> ReadTrackers(YamlMap root, string dir, TrackerRegistry registry)
+    {
+        var seq = root.Sequence("trackers") ?? throw new ArenaInputException("missing required list 'trackers' in 'sweep'", "trackers", root.Location);
+        var list = new List<SweepTracker>();
+        int index = 0;
+        foreach (var item in seq.Children)
+        {
+            var t = new YamlMap(item, root.File, $"sweep.trackers[{index++}]", ["name", "type", "period_ms", "parameters", "library"]);
+            string kind = t.Text("type");
+            TrackerDescriptor descriptor;
+            if (kind == "native")
+            {
+                string rel = t.Text("library");
+                try
+                {
+                    descriptor = NativeTrackerLibrary.Load(Path.IsPathRooted(rel) ? rel : Path.Combine(dir, rel)).Descriptor;
+                }
+                catch (ArenaInputException ex)
+                {
+                    throw new ArenaInputException(ex.Reason, "library", t.Where(t.Node("library")!));
+                }
+            }
+            else
+            {
+                descriptor = registry.Find(kind) ?? throw t.Error(t.Node("type")!, $"unknown tracker type '{kind}'; known types: native, {string.Join(", ", registry.All.Select(d => d.Kind))}", "type");
+            }
+            string name = t.Text("name", kind);
+            if (list.Any(x => x.Name == name)) throw t.Error(t.Node("name") ?? item, $"tracker name '{name}' is used twice", "name");
+            var axes = new List<SweepAxis>();
+            var fixedValues = new Dictionary<string, double>(StringComparer.Ordinal);
+            double period = 10;
+            if (t.Node("period_ms") is { } pn)
+            {
+                var axis = ReadAxis(t, pn, "period_ms", 0.001, 3_600_000);
+                if (axis.Values.Count == 1 && axis.Min == axis.Max) period = axis.Values[0];
+                else axes.Add(axis);
+            }
+            if (t.Node("parameters") is { } paramsNode)
+            {
+                var pm = new YamlMap(paramsNode, root.File, $"{t.Path}.parameters", descriptor.Parameters.Select(p => p.Name).ToArray());
+                foreach (var p in descriptor.Parameters.Where(p => pm.Has(p.Name)))
+                {
+                    var axis = ReadAxis(pm, pm.Node(p.Name)!, p.Name, p.Min, p.Max);
+                    if (axis.Values.Count == 1 && axis.Min == axis.Max) fixedValues[p.Name] = axis.Values[0];
+                    else axes.Add(axis);
+                }
+            }
+            list.Add(new SweepTracker(name, descriptor, fixedValues, axes, period));
+        }
+        if (list.Count == 0) throw root.Error(seq, "'trackers' is empty", "trackers");
+        return list;
+    }
+
+    /// <summary>A number, a list, {from, to, step} or {log_from, log_to, count}.</summary>
+    private static SweepAxis ReadAxis(YamlMap parent, YamlNode node, string name, double min, double max)
+    {
+        string range = $"expected values from {min} to {max}";
+        double Check(YamlNode n, double v) => v >= min && v <= max ? v : throw parent.Error(n, $"'{name}' value {v} is outside its declared range: {range}", name);
+        switch (node)
+        {
+            case YamlScalarNode:
+            {
+                double v = Check(node, parent.ParseNumber(node, name, "a number"));
+                return new SweepAxis(name, [v], v, v, false);
+            }
+            case YamlSequenceNode seq:
+            {
+                var values = seq.Children.Select(n => Check(n, parent.ParseNumber(n, name, "a number"))).Distinct().Order().ToList();
+                if (values.Count == 0) throw parent.Error(node, $"'{name}' is an empty list", name);
+                return new SweepAxis(name, values, values[0], values[^1], false);
+            }
+            default:
+            {
+                var m = new YamlMap(node, parent.File, $"{parent.Path}.{name}", ["from", "to", "step", "log_from", "log_to", "count"]);
+                if (m.Has("from"))
+                {
+                    double from = Check(m.Node("from")!, m.Number("from")), to = Check(m.Node("to") ?? node, m.Number("to")), step = m.Positive("step");
+                    if (to < from) throw m.Error(m.Node("to")!, "'to' must not be below 'from'", "to");
+                    int n = (int)Math.Floor((to - from) / step + 1e-9) + 1;
+                    if (n > 100_000) throw m.Error(m.Node("step")!, $"the range has {n} values; use a larger step", "step");
+                    var values = Enumerable.Range(0, n).Select(k => Math.Round(from + k * step, 12)).ToList();
+                    return new SweepAxis(name, values, from, to, false);
+                }
+                if (m.Has("log_from"))
+                {
+                    double from = Check(m.Node("log_from")!, m.Positive("log_from")), to = Check(m.Node("log_to") ?? node, m.Positive("log_to"));
+                    int count = m.Integer("count", null, 2, 100_000);
+                    if (to <= from) throw m.Error(m.Node("log_to")!, "'log_to' must be above 'log_from'", "log_to");
+                    var values = Enumerable.Range(0, count).Select(k => Math.Round(from * Math.Pow(to / from, (double)k / (count - 1)), 12)).ToList();
+                    return new SweepAxis(name, values, from, to, true);
+                }
+                throw m.Error(node, $"'{name}' needs a number, a list, {{from, to, step}} or {{log_from, log_to, count}}", name);
+            }
+        }
+    }
+
+    private static SweepSampling ReadSampling(YamlMap root)
+    {
+        var s = root.Map("sampling", ["method", "count", "seed"]);
+        if (s is null) return new SweepSampling(SweepSamplingMethod.Grid);
+        string method = s.Text("method", "grid", ["grid", "random", "latin_hypercube"]);
+        var m = method switch { "random" => SweepSamplingMethod.Random, "latin_hypercube" => SweepSamplingMethod.LatinHypercube, _ => SweepSamplingMethod.Grid };
+        int count = m == SweepSamplingMethod.Grid ? 0 : s.Integer("count", null, 1, 1_000_000);
+        string seedText = s.Has("seed") ? s.Scalar(s.Node("seed")!, "seed") : "1";
+        if (!ulong.TryParse(seedText, out ulong seed)) throw s.Error(s.Node("seed")!, "'seed' must be a whole number of at least 0", "seed");
+        return new SweepSampling(m, count, seed);
+    }
+
+    private static TuneSettings? ReadTune(YamlMap root, List<SweepTracker> trackers)
+    {
+        var t = root.Map("tune", ["tracker", "parameters", "score", "goal", "over", "max_evaluations"]);
+        if (t is null) return null;
+        string name = t.Text("tracker");
+        var tracker = trackers.FirstOrDefault(x => x.Name == name) ?? throw t.Error(t.Node("tracker")!, $"tune names tracker '{name}', which the sweep does not have", "tracker");
+        var seq = t.Sequence("parameters") ?? throw new ArenaInputException("tune needs 'parameters': the names to tune", "parameters", t.Location);
+        var names = seq.Children.Select(n => t.Scalar(n, "parameters")).ToList();
+        foreach (var (n, node) in names.Zip(seq.Children))
+        {
+            if (tracker.Descriptor.Parameters.All(p => p.Name != n))
+                throw t.Error(node, $"tracker '{name}' declares no parameter '{n}'; it declares: {string.Join(", ", tracker.Descriptor.Parameters.Select(p => p.Name))}", "parameters");
+        }
+        return new TuneSettings(name, names, t.Text("score", "tracking_efficiency"), t.Text("goal", "maximise", ["maximise", "minimise"]) == "maximise",
+            t.Text("over", "mean", ["mean", "worst"]) == "worst", t.Integer("max_evaluations", 40, 3, 100_000));
+    }
+}

@@ -1,0 +1,83 @@
+using MpptArena.Sensing;
+
+namespace MpptArena.Sweeps;
+
+/// <summary>Expands a sweep into its cases, in a fixed order, and partitions them into shards.</summary>
+public static class SweepPlanner
+{
+    /// <summary>Every case of the sweep: for each tracker, each setting (grid or samples), each scenario.</summary>
+    public static IReadOnlyList<SweepCase> Cases(SweepDefinition sweep)
+    {
+        var cases = new List<SweepCase>();
+        for (int t = 0; t < sweep.Trackers.Count; t++)
+        {
+            var tracker = sweep.Trackers[t];
+            foreach (var setting in Settings(tracker, sweep.Sampling, t))
+            {
+                double period = setting.TryGetValue("period_ms", out double p) ? p : tracker.PeriodMs;
+                var parameters = tracker.Fixed.Concat(setting.Where(kv => kv.Key != "period_ms"))
+                    .OrderBy(kv => kv.Key, StringComparer.Ordinal).ToList();
+                for (int s = 0; s < sweep.Scenarios.Count; s++)
+                {
+                    cases.Add(new SweepCase(s, sweep.Scenarios[s].Name, tracker.Name, tracker.Descriptor.Kind, period, parameters));
+                }
+            }
+        }
+        var duplicate = cases.GroupBy(c => c.Id).FirstOrDefault(g => g.Count() > 1);
+        if (duplicate is not null)
+        {
+            throw new ArenaInputException($"the sweep names the same case twice ({duplicate.First().Key}); give trackers distinct names or settings", "trackers");
+        }
+        return cases;
+    }
+
+    /// <summary>The cases of shard <paramref name="shard"/> of <paramref name="shardCount"/> (1-based).</summary>
+    public static IReadOnlyList<SweepCase> Shard(IReadOnlyList<SweepCase> cases, int shard, int shardCount) =>
+        cases.Where(c => c.ShardOf(shardCount) == shard).ToList();
+
+    private static IEnumerable<Dictionary<string, double>> Settings(SweepTracker tracker, SweepSampling sampling, int trackerIndex)
+    {
+        var axes = tracker.Axes;
+        if (axes.Count == 0)
+        {
+            yield return [];
+            yield break;
+        }
+        if (sampling.Method == SweepSamplingMethod.Grid)
+        {
+            var index = new int[axes.Count];
+            while (true)
+            {
+                yield return axes.Select((a, k) => (a.Name, a.Values[index[k]])).ToDictionary(x => x.Name, x => x.Item2);
+                int d = axes.Count - 1;
+                while (d >= 0 && ++index[d] == axes[d].Values.Count) index[d--] = 0;
+                if (d < 0) yield break;
+            }
+        }
+        var random = new DeterministicRandom(DeterministicRandom.Derive(sampling.Seed, (ulong)trackerIndex + 1));
+        int n = sampling.Count;
+        if (sampling.Method == SweepSamplingMethod.Random)
+        {
+            for (int k = 0; k < n; k++) yield return axes.ToDictionary(a => a.Name, a => a.At(random.NextDouble()));
+            yield break;
+        }
+        // Latin hypercube (M. D. McKay, R. J. Beckman, W. J. Conover, Technometrics 21(2), 1979):
+        // a random permutation of the N strata per axis, a uniform point inside each stratum.
+        var strata = axes.Select(_ => Permutation(n, random)).ToList();
+        for (int k = 0; k < n; k++)
+        {
+            yield return axes.Select((a, j) => (a.Name, a.At((strata[j][k] + random.NextDouble()) / n))).ToDictionary(x => x.Name, x => x.Item2);
+        }
+    }
+
+    private static int[] Permutation(int n, DeterministicRandom random)
+    {
+        var p = Enumerable.Range(0, n).ToArray();
+        for (int i = n - 1; i > 0; i--)
+        {
+            int j = (int)(random.NextUInt64() % (ulong)(i + 1));
+            (p[i], p[j]) = (p[j], p[i]);
+        }
+        return p;
+    }
+}
