@@ -1,3 +1,5 @@
+using MpptArena.Numerics;
+
 namespace MpptArena.Arrays;
 
 /// <summary>
@@ -9,6 +11,7 @@ public sealed class PreparedArrayCurve : IArrayCurve
 {
     private readonly PreparedStringCurve[] _strings;
     private readonly int[] _counts;
+    private readonly PiecewiseCubic _array;
 
     /// <summary>
     /// Relative current tolerance of the string tabulation: the cubic may miss the string's voltage sum by
@@ -17,7 +20,7 @@ public sealed class PreparedArrayCurve : IArrayCurve
     public const double RelativeCurrentTolerance = 1e-6;
 
     /// <summary>Voltage tolerance of each substring table [V].</summary>
-    public const double SubstringVoltageToleranceV = 2e-5;
+    public const double SubstringVoltageToleranceV = 1e-4;
 
     /// <summary>
     /// Prepares <paramref name="exact"/> for fast evaluation. Strings are tabulated from 2 % above the largest
@@ -34,6 +37,7 @@ public sealed class PreparedArrayCurve : IArrayCurve
             .Select(s => new PreparedStringCurve(s, low, high, RelativeCurrentTolerance * iscMax, SubstringVoltageToleranceV))
             .ToArray();
         _counts = exact.StringCounts.ToArray();
+        _array = _strings.Length == 1 && _counts[0] == 1 ? _strings[0].ToCubic() : Combine(_strings, _counts);
         OpenCircuitVoltageV = FindOpenCircuitVoltage();
     }
 
@@ -56,22 +60,37 @@ public sealed class PreparedArrayCurve : IArrayCurve
     /// <inheritdoc/>
     public double OpenCircuitVoltageV { get; }
 
-    /// <summary>Total interpolation nodes over all distinct strings.</summary>
-    public int NodeCount => _strings.Sum(s => s.NodeCount);
+    /// <summary>Interpolation nodes of the combined array curve.</summary>
+    public int NodeCount => _array.NodeCount;
 
     /// <inheritdoc/>
-    public double CurrentAtVoltage(double voltageV) => CurrentAtVoltage(voltageV, out _);
+    public double CurrentAtVoltage(double voltageV) => _array.Evaluate(voltageV, out _);
 
     /// <summary>Array current [A] at voltage [V] and its slope dI/dV [A/V].</summary>
-    public double CurrentAtVoltage(double voltageV, out double slopeAPerV)
+    public double CurrentAtVoltage(double voltageV, out double slopeAPerV) => _array.Evaluate(voltageV, out slopeAPerV);
+
+    /// <summary>
+    /// The array characteristic as one piecewise cubic: on every interval between neighbouring string
+    /// nodes each string is a single cubic, so their weighted sum is a cubic too, fixed exactly by its
+    /// values and slopes at the two ends. One look-up then serves all strings.
+    /// </summary>
+    private static PiecewiseCubic Combine(PreparedStringCurve[] strings, int[] counts)
     {
-        double sum = 0, slope = 0;
-        for (int s = 0; s < _strings.Length; s++)
+        var nodes = new List<double>();
+        foreach (var s in strings) foreach (double v in s.NodeVoltagesV) nodes.Add(v);
+        nodes.Sort();
+        var x = new List<double>(nodes.Count);
+        foreach (double v in nodes) if (x.Count == 0 || v > x[^1] + 1e-12 * Math.Max(1.0, Math.Abs(v))) x.Add(v);
+        var y = new double[x.Count];
+        var m = new double[x.Count];
+        for (int k = 0; k < x.Count; k++)
         {
-            sum += _counts[s] * _strings[s].CurrentAtVoltage(voltageV, out double ds);
-            slope += _counts[s] * ds;
+            for (int s = 0; s < strings.Length; s++)
+            {
+                y[k] += counts[s] * strings[s].CurrentAtVoltage(x[k], out double slope);
+                m[k] += counts[s] * slope;
+            }
         }
-        slopeAPerV = slope;
-        return sum;
+        return new PiecewiseCubic(x.ToArray(), y, m);
     }
 }

@@ -25,6 +25,7 @@ internal sealed class PreparedStringCurve
     private readonly int[] _counts;
     private readonly int[] _hints;
     private readonly double _blockingSaturationA, _blockingIdealityV;
+    private readonly PiecewiseCubic _cubic;
 
     /// <summary>Tabulates <paramref name="model"/> for string currents in [<paramref name="lowCurrentA"/>, <paramref name="highCurrentA"/>].</summary>
     /// <param name="model">Exact string model.</param>
@@ -84,6 +85,7 @@ internal sealed class PreparedStringCurve
             _slopeAPerV[k] = nodes[k].SlopeAPerV;
         }
         MonotoneHermite.LimitSlopes(_voltageV, _currentA, _slopeAPerV);
+        _cubic = ToCubic();
         OpenCircuitVoltageV = StringVoltage(0.0, out _);
     }
 
@@ -159,26 +161,9 @@ internal sealed class PreparedStringCurve
         return result;
     }
 
+    /// <summary>The tabulated string characteristic I(V) as a fast piecewise cubic.</summary>
+    public PiecewiseCubic ToCubic() => new(_voltageV, _currentA, _slopeAPerV);
+
     /// <summary>String current [A] at voltage [V] and dI/dV [A/V].</summary>
-    public double CurrentAtVoltage(double voltageV, out double slopeAPerV)
-    {
-        var vs = _voltageV;
-        int last = vs.Length - 1;
-        if (voltageV <= vs[0])
-        {
-            slopeAPerV = _slopeAPerV[0];
-            return _currentA[0] + slopeAPerV * (voltageV - vs[0]);
-        }
-        if (voltageV >= vs[last])
-        {
-            slopeAPerV = _slopeAPerV[last];
-            return _currentA[last] + slopeAPerV * (voltageV - vs[last]);
-        }
-        int j = Array.BinarySearch(vs, voltageV);
-        if (j < 0) j = ~j - 1;
-        double h = vs[j + 1] - vs[j];
-        double t = (voltageV - vs[j]) / h;
-        slopeAPerV = MonotoneHermite.Slope(t, h, _currentA[j], _currentA[j + 1], _slopeAPerV[j], _slopeAPerV[j + 1]);
-        return MonotoneHermite.Value(t, h, _currentA[j], _currentA[j + 1], _slopeAPerV[j], _slopeAPerV[j + 1]);
-    }
+    public double CurrentAtVoltage(double voltageV, out double slopeAPerV) => _cubic.Evaluate(voltageV, out slopeAPerV);
 }

@@ -58,21 +58,29 @@ public static class LambertW
             double e = Math.Exp(z);
             return e * (1.0 - e);
         }
-        if (z < 2.0) return W0(Math.Exp(z));
-
-        // Large argument: omega ~ z - ln z + ln z / z (Lawrence, Corless, Jeffrey 2012, sec. 3).
-        double lz = Math.Log(z);
-        double w = z - lz + lz / z;
-        for (int i = 0; i < MaxIterations; i++)
+        double w;
+        if (z < 1.0)
         {
-            // Halley's method on f(w) = w + ln w - z: f' = 1 + 1/w, f'' = -1/w^2.
-            double f = w + Math.Log(w) - z;
-            double d1 = 1.0 + 1.0 / w;
-            double d2 = -1.0 / (w * w);
-            double step = f / (d1 - 0.5 * f * d2 / d1);
-            double next = w - step;
-            if (next <= 0) next = 0.5 * w;
-            if (Math.Abs(next - w) <= 4e-16 * Math.Abs(next)) return next;
+            // Winitzki's approximation of W0(x), x = e^z (S. Winitzki, "Uniform approximations for
+            // transcendental functions", ICCSA 2003), good to about 1e-2 relative here.
+            double l = Math.Log(1.0 + Math.Exp(z));
+            w = l * (1.0 - Math.Log(1.0 + l) / (2.0 + l));
+        }
+        else
+        {
+            // omega ~ z - ln z + ln z / z (Lawrence, Corless, Jeffrey 2012, sec. 3).
+            double lz = Math.Log(z);
+            w = z - lz + lz / z;
+        }
+        // Fourth-order iteration of Fritsch, Shafer and Crowley (Comm. ACM 16(2), 1973), as used by
+        // Algorithm 917: each step roughly quadruples the number of correct digits.
+        for (int i = 0; i < 6; i++)
+        {
+            double r = z - w - Math.Log(w);
+            double wp1 = w + 1.0;
+            double u = 2.0 * wp1 * (wp1 + 2.0 / 3.0 * r);
+            double next = w * (1.0 + r / wp1 * (u - r) / (u - 2.0 * r));
+            if (Math.Abs(next - w) <= 2e-16 * next) return next;
             w = next;
         }
         return w;
