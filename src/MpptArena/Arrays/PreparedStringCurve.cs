@@ -33,7 +33,8 @@ internal sealed class PreparedStringCurve
     /// <param name="highCurrentA">Highest current [A] (above every substring's short-circuit current).</param>
     /// <param name="currentToleranceA">Largest current error [A] accepted at any interval's midpoint.</param>
     /// <param name="substringVoltageToleranceV">Voltage tolerance of each substring table [V].</param>
-    public PreparedStringCurve(StringModel model, double lowCurrentA, double highCurrentA, double currentToleranceA, double substringVoltageToleranceV)
+    /// <param name="tables">Cache of substring tables shared across preparations, or null.</param>
+    public PreparedStringCurve(StringModel model, double lowCurrentA, double highCurrentA, double currentToleranceA, double substringVoltageToleranceV, SubstringTableCache? tables = null)
     {
         if (model.HasBlockingDiode)
         {
@@ -42,7 +43,12 @@ internal sealed class PreparedStringCurve
         }
         var distinct = model.DistinctSubstrings;
         _tables = new SubstringTable[distinct.Count];
-        for (int k = 0; k < distinct.Count; k++) _tables[k] = new SubstringTable(distinct[k], lowCurrentA, highCurrentA, substringVoltageToleranceV);
+        for (int k = 0; k < distinct.Count; k++)
+        {
+            _tables[k] = tables is null
+                ? new SubstringTable(distinct[k], lowCurrentA, highCurrentA, substringVoltageToleranceV)
+                : tables.Get(distinct[k], lowCurrentA, highCurrentA, substringVoltageToleranceV);
+        }
         _counts = model.Counts.ToArray();
         _hints = new int[_tables.Length];
 

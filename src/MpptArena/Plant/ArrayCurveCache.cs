@@ -18,6 +18,7 @@ public sealed class ArrayCurveCache
     private readonly PvArray _array;
     private readonly double _irradianceThresholdWm2, _temperatureThresholdC;
     private readonly ArrayConditions _prepared;
+    private readonly SubstringTableCache _tables = new();
     private bool _hasCurve;
 
     /// <summary>A cache for <paramref name="array"/> with the given thresholds.</summary>
@@ -35,6 +36,9 @@ public sealed class ArrayCurveCache
     /// <summary>Its local and global maxima.</summary>
     public PowerPeaks Peaks { get; private set; } = PowerPeaks.None;
 
+    /// <summary>Substring tables built and reused so far.</summary>
+    public SubstringTableCache Tables => _tables;
+
     /// <summary>Preparations so far.</summary>
     public int Preparations { get; private set; }
 
@@ -46,8 +50,8 @@ public sealed class ArrayCurveCache
     {
         if (_hasCurve && !MovedBeyondThreshold(conditions)) return false;
         _prepared.CopyFrom(conditions);
-        Curve = new PreparedArrayCurve(_array.Solve(_prepared));
-        Peaks = MppSearch.FindPeaks(Curve);
+        Curve = new PreparedArrayCurve(_array.Solve(_prepared), _tables);
+        Peaks = MppSearch.FindPeaks(Curve, Math.Max(400, 25 * _array.Layout.SubstringsPerString));
         Preparations++;
         _hasCurve = true;
         return true;
