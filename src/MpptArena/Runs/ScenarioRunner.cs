@@ -135,7 +135,7 @@ public sealed class ScenarioRunner
             lane.Sink?.Dispose();
             (lane.Tracker as IDisposable)?.Dispose();
             var scores = lane.Scorer.Finish(end);
-            double meanNs = lane.Calls > 0 ? lane.ComputeTicks * 1e9 / Stopwatch.Frequency / lane.Calls : 0;
+            double meanNs = lane.TimedCalls > 0 ? lane.ComputeTicks * 1e9 / Stopwatch.Frequency / lane.TimedCalls : 0;
             return new TrackerResult(lane.Spec.Name, lane.Spec.Descriptor.Kind, lane.Spec.SamplePeriodS, lane.Spec.Settings.All,
                 lane.Failure is null ? scores : null, lane.Failure, lane.Calls, meanNs);
         }).ToList();

@@ -10,7 +10,7 @@ namespace MpptArena.Runs;
 /// <param name="Scores">Scores; null if the tracker failed.</param>
 /// <param name="Failure">Failure, or null.</param>
 /// <param name="TrackerCalls">Number of tracker calls made.</param>
-/// <param name="MeanComputeNs">Mean wall time per tracker call [ns]; informational, machine dependent.</param>
+/// <param name="MeanComputeNs">Mean wall time per tracker call [ns], timed on one call in 16; informational, machine dependent.</param>
 public sealed record TrackerResult(
     string Name,
     string Kind,
