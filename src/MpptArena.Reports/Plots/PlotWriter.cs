@@ -52,47 +52,35 @@ public static class PlotWriter
     }
 
     /// <summary>Power of every tracker and the true MPP power against time.</summary>
-    public static Plot Power(IReadOnlyDictionary<string, IReadOnlyList<SeriesRow>> series)
-    {
-        var plot = new Plot();
-        var first = series.Values.First();
-        var mpp = plot.Add.ScatterLine(first.Select(r => r.TimeS).ToArray(), first.Select(r => r.MppPowerW).ToArray());
-        mpp.LegendText = "global MPP";
-        mpp.Color = Colors.Black;
-        mpp.LineWidth = 2;
-        mpp.LinePattern = LinePattern.Dashed;
-        foreach (var (name, rows) in series)
-        {
-            var line = plot.Add.ScatterLine(rows.Select(r => r.TimeS).ToArray(), rows.Select(r => r.PowerW).ToArray());
-            line.LegendText = name;
-            line.LineWidth = 1.5f;
-        }
-        plot.Title("Array power and the power available at the global MPP");
-        plot.XLabel("time [s]");
-        plot.YLabel("power [W]");
-        plot.ShowLegend(Alignment.LowerLeft);
-        return plot;
-    }
+    public static Plot Power(IReadOnlyDictionary<string, IReadOnlyList<SeriesRow>> series) =>
+        AgainstMpp(series, r => r.PowerW, r => r.MppPowerW, "global MPP",
+            "Array power and the power available at the global MPP", "power [W]");
 
     /// <summary>Operating voltage of every tracker and the voltage of the global MPP against time.</summary>
-    public static Plot Voltage(IReadOnlyDictionary<string, IReadOnlyList<SeriesRow>> series)
+    public static Plot Voltage(IReadOnlyDictionary<string, IReadOnlyList<SeriesRow>> series) =>
+        AgainstMpp(series, r => r.VoltageV, r => r.MppVoltageV, "global MPP voltage",
+            "Operating voltage against the voltage of the global MPP", "PV voltage [V]");
+
+    /// <summary>One quantity of every tracker against time, with the same quantity at the true MPP dashed in black.</summary>
+    private static Plot AgainstMpp(IReadOnlyDictionary<string, IReadOnlyList<SeriesRow>> series, Func<SeriesRow, double> tracker,
+        Func<SeriesRow, double> atMpp, string mppLegend, string title, string yLabel)
     {
         var plot = new Plot();
         var first = series.Values.First();
-        var mpp = plot.Add.ScatterLine(first.Select(r => r.TimeS).ToArray(), first.Select(r => r.MppVoltageV).ToArray());
-        mpp.LegendText = "global MPP voltage";
+        var mpp = plot.Add.ScatterLine(first.Select(r => r.TimeS).ToArray(), first.Select(atMpp).ToArray());
+        mpp.LegendText = mppLegend;
         mpp.Color = Colors.Black;
         mpp.LineWidth = 2;
         mpp.LinePattern = LinePattern.Dashed;
         foreach (var (name, rows) in series)
         {
-            var line = plot.Add.ScatterLine(rows.Select(r => r.TimeS).ToArray(), rows.Select(r => r.VoltageV).ToArray());
+            var line = plot.Add.ScatterLine(rows.Select(r => r.TimeS).ToArray(), rows.Select(tracker).ToArray());
             line.LegendText = name;
             line.LineWidth = 1.5f;
         }
-        plot.Title("Operating voltage against the voltage of the global MPP");
+        plot.Title(title);
         plot.XLabel("time [s]");
-        plot.YLabel("PV voltage [V]");
+        plot.YLabel(yLabel);
         plot.ShowLegend(Alignment.LowerLeft);
         return plot;
     }

@@ -18,7 +18,7 @@ public sealed class PeriodicScanTracker : IMpptTracker
     private TrackerContext _context = null!;
     private double _reference, _lastScanS, _previousPowerW, _bestPowerW, _bestV;
     private int _scanIndex; // -1 when tracking
-    private int _direction;
+    private HillClimbDirection _climb;
 
     /// <summary>Declared parameters.</summary>
     public static IReadOnlyList<TrackerParameter> Parameters { get; } =
@@ -55,7 +55,6 @@ public sealed class PeriodicScanTracker : IMpptTracker
     {
         _context = context;
         _previousPowerW = 0;
-        _direction = -1;
         StartScan(0.0);
         return _reference;
     }
@@ -96,6 +95,7 @@ public sealed class PeriodicScanTracker : IMpptTracker
             _scanIndex = -1;
             _reference = _bestV;
             _previousPowerW = 0;
+            _climb.Reset(-1);
             return _reference;
         }
 
@@ -107,9 +107,8 @@ public sealed class PeriodicScanTracker : IMpptTracker
             StartScan(m.TimeS);
             return _reference;
         }
-        if (p < _previousPowerW) _direction = -_direction;
         _previousPowerW = p;
-        _reference = Math.Clamp(_reference + _direction * _stepV, _context.MinCommand, _context.MaxCommand);
+        _reference = Math.Clamp(_reference + _climb.Next(p) * _stepV, _context.MinCommand, _context.MaxCommand);
         return _reference;
     }
 }

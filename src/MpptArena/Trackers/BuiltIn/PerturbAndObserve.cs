@@ -14,9 +14,8 @@ public sealed class PerturbAndObserve : IMpptTracker
     private readonly double _stepV;
     private readonly double _startFraction;
     private TrackerContext _context = null!;
-    private double _previousPowerW;
     private double _reference;
-    private int _direction;
+    private HillClimbDirection _climb;
 
     /// <summary>Declared parameters.</summary>
     public static IReadOnlyList<TrackerParameter> Parameters { get; } =
@@ -39,8 +38,7 @@ public sealed class PerturbAndObserve : IMpptTracker
     public double Reset(TrackerContext context)
     {
         _context = context;
-        _previousPowerW = 0;
-        _direction = -1;
+        _climb.Reset(-1);
         _reference = Math.Clamp(_startFraction * context.NominalOpenCircuitVoltageV, context.MinCommand, context.MaxCommand);
         return _reference;
     }
@@ -48,10 +46,7 @@ public sealed class PerturbAndObserve : IMpptTracker
     /// <inheritdoc/>
     public double Step(in TrackerMeasurement m)
     {
-        double p = m.PowerW;
-        if (p < _previousPowerW) _direction = -_direction;
-        _previousPowerW = p;
-        _reference = Math.Clamp(_reference + _direction * _stepV, _context.MinCommand, _context.MaxCommand);
+        _reference = Math.Clamp(_reference + _climb.Next(m.PowerW) * _stepV, _context.MinCommand, _context.MaxCommand);
         return _reference;
     }
 }

@@ -11,9 +11,8 @@ public sealed class PerturbAndObserveDuty : IMpptTracker
     private readonly double _step;
     private readonly double _start;
     private TrackerContext _context = null!;
-    private double _previousPowerW;
     private double _duty;
-    private int _direction;
+    private HillClimbDirection _climb;
 
     /// <summary>Declared parameters.</summary>
     public static IReadOnlyList<TrackerParameter> Parameters { get; } =
@@ -36,8 +35,7 @@ public sealed class PerturbAndObserveDuty : IMpptTracker
     public double Reset(TrackerContext context)
     {
         _context = context;
-        _previousPowerW = 0;
-        _direction = 1;
+        _climb.Reset(1);
         _duty = Math.Clamp(_start, context.MinCommand, context.MaxCommand);
         return _duty;
     }
@@ -45,10 +43,7 @@ public sealed class PerturbAndObserveDuty : IMpptTracker
     /// <inheritdoc/>
     public double Step(in TrackerMeasurement m)
     {
-        double p = m.PowerW;
-        if (p < _previousPowerW) _direction = -_direction;
-        _previousPowerW = p;
-        _duty = Math.Clamp(_duty + _direction * _step, _context.MinCommand, _context.MaxCommand);
+        _duty = Math.Clamp(_duty + _climb.Next(m.PowerW) * _step, _context.MinCommand, _context.MaxCommand);
         return _duty;
     }
 }
