@@ -5,8 +5,9 @@ namespace MpptArena.Plant;
 
 /// <summary>
 /// The parts shared by the averaged switching converters: state (input-capacitor voltage v, inductor
-/// current i), the classical fourth-order Runge-Kutta step with the duty cycle held over the step
-/// (a digital modulator updating once per plant step), the inner control loops, and the energy ledger
+/// current i), the classical fourth-order Runge-Kutta step with the duty cycle either held over the step
+/// (duty-cycle commands, digital loops) or computed from the state in every stage (continuous loops),
+/// the inner control loops, and the energy ledger
 /// integrated as extra states of the same step so the balance closes to the integrator's accuracy.
 /// </summary>
 /// <remarks>
@@ -20,9 +21,10 @@ namespace MpptArena.Plant;
 /// reference step with tau_v = C/Kv and the inductor current its reference with tau_i = L/Kc, so the
 /// averaged model needs no integrator; an optional PI zero at f_z adds Ki = Kv 2 pi f_z (with
 /// anti-windup) for users who want to see its effect. Gains follow from the requested bandwidths:
-/// Kv = 2 pi f_v C, Kc = 2 pi f_i L. The loops update the duty cycle at their own rate (every plant
-/// step by default) and hold it in between; they see true values (their analog sensing is much faster
-/// than the tracker's ADC path).
+/// Kv = 2 pi f_v C, Kc = 2 pi f_i L. By default the loops act continuously, as analog or fast digital
+/// loops do, so the model does not depend on the plant step; with a loop rate they update the duty
+/// cycle at that rate and hold it in between (zero-order hold). They see true values (their analog
+/// sensing is much faster than the tracker's ADC path).
 /// </remarks>
 public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
 {
@@ -91,10 +93,20 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
     /// <inheritdoc/>
     public void Step(double dtS, PreparedArrayCurve curve, double command, TrackerCommandKind kind)
     {
+        // Continuous (analog) loops: the duty cycle follows the state inside every stage of the step, so
+        // the model does not change with the plant step; digital loops hold it between updates.
+        bool continuous = kind == TrackerCommandKind.VoltageReference && Settings.VoltageLoopRateHz <= 0;
         double ipv = curve.CurrentAtVoltage(_v);
         if (kind == TrackerCommandKind.DutyCycle)
         {
             _duty = Math.Clamp(command, Settings.MinDuty, Settings.MaxDuty);
+        }
+        else if (continuous)
+        {
+            double error = _v - command;
+            double duty = DutyForInputCurrent(_v, _i, ipv + Kv * error + Ki * _integral);
+            double clamped = Math.Clamp(duty, Settings.MinDuty, Settings.MaxDuty);
+            if (Ki > 0 && (clamped == duty || Math.Sign(error) != Math.Sign(_integral))) _integral += error * dtS;
         }
         else if (_sinceUpdateS >= LoopPeriodS(dtS))
         {
@@ -109,12 +121,12 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
         }
         _sinceUpdateS += dtS;
 
-        // Classical RK4 on (v, i, E_pv, E_out, E_loss) with d held.
-        double d = _duty;
-        Derivatives(curve, _v, _i, d, out double k1v, out double k1i, out double p1, out double o1, out double l1);
-        Derivatives(curve, _v + 0.5 * dtS * k1v, _i + 0.5 * dtS * k1i, d, out double k2v, out double k2i, out double p2, out double o2, out double l2);
-        Derivatives(curve, _v + 0.5 * dtS * k2v, _i + 0.5 * dtS * k2i, d, out double k3v, out double k3i, out double p3, out double o3, out double l3);
-        Derivatives(curve, _v + dtS * k3v, _i + dtS * k3i, d, out double k4v, out double k4i, out double p4, out double o4, out double l4);
+        // Classical RK4 on (v, i, E_pv, E_out, E_loss); d held (digital) or a function of the state (continuous).
+        var law = new DutyLaw(continuous, _duty, command, Ki * _integral);
+        Derivatives(curve, _v, _i, law, out double k1v, out double k1i, out double p1, out double o1, out double l1);
+        Derivatives(curve, _v + 0.5 * dtS * k1v, _i + 0.5 * dtS * k1i, law, out double k2v, out double k2i, out double p2, out double o2, out double l2);
+        Derivatives(curve, _v + 0.5 * dtS * k2v, _i + 0.5 * dtS * k2i, law, out double k3v, out double k3i, out double p3, out double o3, out double l3);
+        Derivatives(curve, _v + dtS * k3v, _i + dtS * k3i, law, out double k4v, out double k4i, out double p4, out double o4, out double l4);
         _v += dtS / 6 * (k1v + 2 * k2v + 2 * k3v + k4v);
         _i += dtS / 6 * (k1i + 2 * k2i + 2 * k3i + k4i);
         _energy.FromArrayJ += dtS / 6 * (p1 + 2 * p2 + 2 * p3 + p4);
@@ -127,13 +139,23 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
             _i = 0;
         }
         _pvCurrent = curve.CurrentAtVoltage(_v);
+        if (continuous) _duty = DutyAt(law, _v, _i, _pvCurrent);
     }
 
-    private void Derivatives(PreparedArrayCurve curve, double v, double i, double d,
+    /// <summary>How the duty cycle is found inside a step.</summary>
+    private readonly record struct DutyLaw(bool Continuous, double HeldDuty, double ReferenceV, double IntegralA);
+
+    private double DutyAt(in DutyLaw law, double v, double i, double ipv) =>
+        law.Continuous
+            ? Math.Clamp(DutyForInputCurrent(v, i, ipv + Kv * (v - law.ReferenceV) + law.IntegralA), Settings.MinDuty, Settings.MaxDuty)
+            : law.HeldDuty;
+
+    private void Derivatives(PreparedArrayCurve curve, double v, double i, in DutyLaw law,
         out double dv, out double di, out double pPv, out double pOut, out double pLoss)
     {
         double ipv = curve.CurrentAtVoltage(v);
         double iPos = Math.Max(i, 0.0);
+        double d = DutyAt(law, v, iPos, ipv);
         StateDerivatives(v, iPos, d, ipv, out dv, out di, out pOut);
         pPv = v * ipv;
         pLoss = Settings.InductorResistanceOhm * iPos * iPos;

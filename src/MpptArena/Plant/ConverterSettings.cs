@@ -28,7 +28,7 @@ public enum FrontEndKind
 /// <param name="CurrentLoopBandwidthHz">Innermost inductor-current loop crossover [Hz].</param>
 /// <param name="MaxVoltageReferenceV">Highest voltage reference accepted [V].</param>
 /// <param name="VoltageLoopIntegralHz">Zero of the voltage loop's PI controller [Hz]; 0 for proportional with feed-forward only.</param>
-/// <param name="VoltageLoopRateHz">Rate at which the inner loops update the duty cycle [Hz]; 0 for every plant step.</param>
+/// <param name="VoltageLoopRateHz">Rate at which the inner loops update the duty cycle [Hz]; 0 for continuous loops.</param>
 public sealed record ConverterSettings(
     FrontEndKind Kind,
     double LagTimeConstantS = 2e-3,
