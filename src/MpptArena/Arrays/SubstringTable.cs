@@ -19,8 +19,12 @@ internal sealed class SubstringTable
     /// <summary>Tabulates <paramref name="model"/> for currents in [<paramref name="lowCurrentA"/>, <paramref name="highCurrentA"/>].</summary>
     public SubstringTable(in SubstringModel model, double lowCurrentA, double highCurrentA, double voltageToleranceV)
     {
-        double vHigh = model.VoltageAtCurrent(lowCurrentA, out _);
-        double vLow = model.VoltageAtCurrent(highCurrentA, out _);
+        // The range ends need only bracket the currents, not hit them: the cells' closed-form voltage at
+        // the lowest current (the bypass diode only leaks there), and at the highest the voltage at which
+        // the diode alone would carry the excess over the cells' short-circuit current.
+        double vHigh = Math.Max(Pv.SingleDiodeModel.VoltageAtCurrent(model.Cells, lowCurrentA), model.BypassIdealityVoltageV);
+        double excess = Math.Max(highCurrentA - model.ShortCircuitCurrentA, 1e-12);
+        double vLow = -model.BypassIdealityVoltageV * Math.Log(excess / model.BypassSaturationCurrentA + 1.0) - model.BypassIdealityVoltageV;
         var seeds = new List<double> { vLow, vHigh, 0.0 };
         const int uniform = 12;
         for (int k = 1; k < uniform; k++) seeds.Add(vLow + (vHigh - vLow) * k / uniform);
