@@ -15,13 +15,14 @@ public sealed record EnvironmentModel(PiecewiseLinearProfile Irradiance, Tempera
     public void Evaluate(double timeS, ArrayConditions target, double[] factors)
     {
         double g = Math.Max(Irradiance.ValueAt(timeS), 0.0);
+        double temperature = Temperature.Profile.ValueAt(timeS);
         Array.Fill(factors, 1.0);
-        foreach (var shade in Shading) shade.Apply(timeS, factors);
+        for (int s = 0; s < Shading.Count; s++) Shading[s].Apply(timeS, factors);
         for (int k = 0; k < factors.Length; k++)
         {
             double gk = g * factors[k];
             target.IrradianceWm2[k] = gk;
-            target.CellTemperatureC[k] = Temperature.CellTemperatureC(timeS, gk);
+            target.CellTemperatureC[k] = Temperature.CellTemperatureFromProfileValue(temperature, gk);
         }
     }
 }

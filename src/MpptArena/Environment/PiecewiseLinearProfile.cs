@@ -52,6 +52,12 @@ public sealed class PiecewiseLinearProfile
         return _value[j] + (_value[j + 1] - _value[j]) * (timeS - t0) / (t1 - t0);
     }
 
-    /// <summary>Times in [from, to) where the profile has a step or a change of slope [s].</summary>
-    public IEnumerable<double> BreakpointsBetween(double fromS, double toS) => _timeS.Where(t => t >= fromS && t < toS).Distinct();
+    /// <summary>True if a breakpoint (a step or a change of slope) lies in [from, to) [s]. Allocation-free.</summary>
+    public bool HasBreakpointIn(double fromS, double toS)
+    {
+        int j = Array.BinarySearch(_timeS, fromS);
+        if (j < 0) j = ~j;
+        else while (j > 0 && _timeS[j - 1] == fromS) j--;
+        return j < _timeS.Length && _timeS[j] < toS;
+    }
 }

@@ -6,9 +6,9 @@ namespace MpptArena.Environment;
 public sealed record TemperatureModel(PiecewiseLinearProfile Profile, double? NoctC)
 {
     /// <summary>Cell temperature [degC] at a time for a substring receiving <paramref name="irradianceWm2"/>.</summary>
-    public double CellTemperatureC(double timeS, double irradianceWm2)
-    {
-        double t = Profile.ValueAt(timeS);
-        return NoctC is { } noct ? Pv.NoctCellTemperature.CellTemperatureC(t, irradianceWm2, noct) : t;
-    }
+    public double CellTemperatureC(double timeS, double irradianceWm2) => CellTemperatureFromProfileValue(Profile.ValueAt(timeS), irradianceWm2);
+
+    /// <summary>Cell temperature [degC] from the profile's value at the time [degC] and the substring's irradiance [W/m2].</summary>
+    public double CellTemperatureFromProfileValue(double profileValueC, double irradianceWm2) =>
+        NoctC is { } noct ? Pv.NoctCellTemperature.CellTemperatureC(profileValueC, irradianceWm2, noct) : profileValueC;
 }

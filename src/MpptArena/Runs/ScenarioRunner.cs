@@ -197,8 +197,8 @@ public sealed class ScenarioRunner
     private static string? DetectEvent(Scenario scenario, double fromS, double toS, double[] factors, double[] previous)
     {
         var env = scenario.Environment;
-        if (env.Irradiance.BreakpointsBetween(fromS + 1e-12, toS + 1e-12).Any()) return "irradiance change";
-        if (env.Temperature.Profile.BreakpointsBetween(fromS + 1e-12, toS + 1e-12).Any()) return "temperature change";
+        if (env.Irradiance.HasBreakpointIn(fromS + 1e-12, toS + 1e-12)) return "irradiance change";
+        if (env.Temperature.Profile.HasBreakpointIn(fromS + 1e-12, toS + 1e-12)) return "temperature change";
         for (int k = 0; k < factors.Length; k++)
         {
             if (Math.Abs(factors[k] - previous[k]) > 0.01) return "shading change";
