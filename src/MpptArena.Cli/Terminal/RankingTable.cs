@@ -10,10 +10,12 @@ internal static class RankingTable
     public static void Print(RunSummary s)
     {
         var c = CultureInfo.InvariantCulture;
+        // Logs and CI consoles report a narrow width; the table needs about 90 columns.
+        if (!ConsoleMode.Interactive && AnsiConsole.Profile.Width < 100) AnsiConsole.Profile.Width = 100;
         var table = new Table().Border(TableBorder.Rounded).Title($"[bold]{Markup.Escape(s.Scenario.Name)}[/]");
         table.AddColumn("#");
         table.AddColumn("tracker");
-        table.AddColumn(new TableColumn("efficiency").RightAligned());
+        table.AddColumn(new TableColumn("efficiency").RightAligned().NoWrap());
         table.AddColumn(new TableColumn("lost Wh").RightAligned());
         table.AddColumn(new TableColumn("start-up s").RightAligned());
         table.AddColumn(new TableColumn("settling s").RightAligned());
