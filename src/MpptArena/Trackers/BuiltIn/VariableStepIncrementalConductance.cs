@@ -8,11 +8,9 @@ namespace MpptArena.Trackers.BuiltIn;
 /// IEEE Trans. Industrial Electronics 55(7), 2008, 2622-2628: step = N |dP/dV|, limited to a maximum
 /// (their eq. 9 and the rule for choosing N).
 /// </remarks>
-public sealed class VariableStepIncrementalConductance : IMpptTracker
+public sealed class VariableStepIncrementalConductance(TrackerSettings s) : IncrementalConductanceCore(s["tolerance"], s["start_fraction"])
 {
-    private readonly double _scale, _maxStepV, _minStepV, _tolerance, _startFraction;
-    private TrackerContext _context = null!;
-    private double _previousV, _previousI, _reference;
+    private readonly double _scale = s["scale_v2_per_w"], _maxStepV = s["max_step_v"], _minStepV = s["min_step_v"];
 
     /// <summary>Declared parameters.</summary>
     public static IReadOnlyList<TrackerParameter> Parameters { get; } =
@@ -24,40 +22,10 @@ public sealed class VariableStepIncrementalConductance : IMpptTracker
         new("start_fraction", "-", 0.8, 0.0, 1.2, "Initial reference as a fraction of the array's STC open-circuit voltage"),
     ];
 
-    /// <summary>A tracker from settings.</summary>
-    public VariableStepIncrementalConductance(TrackerSettings s)
-    {
-        _scale = s["scale_v2_per_w"];
-        _maxStepV = s["max_step_v"];
-        _minStepV = s["min_step_v"];
-        _tolerance = s["tolerance"];
-        _startFraction = s["start_fraction"];
-    }
-
     /// <inheritdoc/>
-    public TrackerCommandKind CommandKind => TrackerCommandKind.VoltageReference;
-
-    /// <inheritdoc/>
-    public double Reset(TrackerContext context)
+    protected override double StepSizeV(double deltaVoltageV, double deltaPowerW)
     {
-        _context = context;
-        _previousV = 0;
-        _previousI = 0;
-        _reference = Math.Clamp(_startFraction * context.NominalOpenCircuitVoltageV, context.MinCommand, context.MaxCommand);
-        return _reference;
-    }
-
-    /// <inheritdoc/>
-    public double Step(in TrackerMeasurement m)
-    {
-        double dv = m.VoltageV - _previousV, di = m.CurrentA - _previousI;
-        int move = IncrementalConductance.Direction(m.VoltageV, m.CurrentA, dv, di, _tolerance, _context.VoltageLsbV, _context.CurrentLsbA);
-        double dp = m.VoltageV * m.CurrentA - _previousV * _previousI;
-        double step = Math.Abs(dv) > 0.5 * _context.VoltageLsbV ? _scale * Math.Abs(dp / dv) : _maxStepV;
-        step = Math.Clamp(step, _minStepV, _maxStepV);
-        _previousV = m.VoltageV;
-        _previousI = m.CurrentA;
-        _reference = Math.Clamp(_reference + move * step, _context.MinCommand, _context.MaxCommand);
-        return _reference;
+        double step = Math.Abs(deltaVoltageV) > 0.5 * Context.VoltageLsbV ? _scale * Math.Abs(deltaPowerW / deltaVoltageV) : _maxStepV;
+        return Math.Clamp(step, _minStepV, _maxStepV);
     }
 }
