@@ -55,6 +55,15 @@ public readonly record struct SubstringModel(
         return v;
     }
 
+    /// <summary>Current [A] and dI/dV [A/V] at substring voltage [V], sharing one exponential between the bypass current and its slope.</summary>
+    public double CurrentAndSlopeAtVoltage(double voltageV, out double slopeAPerV)
+    {
+        double ic = SingleDiodeModel.CurrentAtVoltage(Cells, voltageV);
+        double e = Math.Exp(Math.Min(-voltageV / BypassIdealityVoltageV, 700.0));
+        slopeAPerV = SingleDiodeModel.SlopeAtPoint(Cells, voltageV, ic) - BypassSaturationCurrentA / BypassIdealityVoltageV * e;
+        return ic + BypassSaturationCurrentA * (e - 1.0);
+    }
+
     /// <summary>Slope of the substring's total current with voltage, dI/dV [A/V], at voltage [V].</summary>
     public double SlopeAtVoltage(double voltageV, double cellCurrentA) =>
         SingleDiodeModel.SlopeAtPoint(Cells, voltageV, cellCurrentA)

@@ -78,9 +78,8 @@ internal sealed class SubstringTable
 
     private static Node Evaluate(in SubstringModel model, double v)
     {
-        double ic = Pv.SingleDiodeModel.CurrentAtVoltage(model.Cells, v);
-        double i = ic + model.BypassCurrent(v);
-        return new Node(v, i, 1.0 / model.SlopeAtVoltage(v, ic));
+        double i = model.CurrentAndSlopeAtVoltage(v, out double slope);
+        return new Node(v, i, 1.0 / slope);
     }
 
     private static double Hermite(Node lo, Node hi, double i)
