@@ -16,7 +16,7 @@ namespace MpptArena.Arrays;
 internal sealed class PreparedStringCurve
 {
     private const int UniformNodes = 48;
-    private static readonly double[] ClusterOffsets = [1e-1, 3e-2, 1e-2, 3e-3, 1e-3, 1e-4, 1e-5, 1e-6];
+    private static readonly double[] ClusterOffsets = [3e-2, 3e-3, 3e-4, 1e-5];
 
     private readonly double[] _voltageV;   // ascending
     private readonly double[] _currentA;   // descending with voltage
