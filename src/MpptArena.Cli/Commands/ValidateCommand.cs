@@ -15,8 +15,15 @@ internal static class ValidateCommand
         {
             try
             {
+                if (File.Exists(file) && File.ReadLines(file).Any(l => l.StartsWith("conditions:", StringComparison.Ordinal)))
+                {
+                    var (name, array, _) = ScenarioLoader.LoadCurveSetup(file, 0);
+                    Console.WriteLine($"ok    {file}: plant file '{name}' for the curve command, {array.Layout.SubstringCount} substrings");
+                    continue;
+                }
                 var s = ScenarioLoader.Load(file, registry);
-                Console.WriteLine($"ok    {file}: {s.Trackers.Count} trackers, {s.Simulation.DurationS} s");
+                Console.WriteLine(string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                    $"ok    {file}: scenario '{s.Name}', {s.Trackers.Count} trackers, {s.Simulation.DurationS:G6} s simulated"));
             }
             catch (ArenaInputException ex)
             {
