@@ -52,9 +52,9 @@ public class RunThroughputBenchmarks
             profile.TimesS.Where(t => t >= blockStart).Select(t => t - blockStart).ToList(),
             profile.TimesS.Select((t, i) => (t, i)).Where(x => x.t >= blockStart).Select(x => profile.Values[x.i]).ToList());
         var rampScenario = ramps with { Environment = ramps.Environment with { Irradiance = shifted } };
-        _rampBoost = Make(rampScenario, FrontEndKind.Boost, 100e-6);
+        _rampBoost = Make(rampScenario, FrontEndKind.Boost, 200e-6);
         _rampIdeal = Make(rampScenario, FrontEndKind.IdealSource, 1e-3);
-        _shadowBoost = Make(demo, FrontEndKind.Boost, 100e-6);
+        _shadowBoost = Make(demo, FrontEndKind.Boost, 200e-6);
         _shadowIdeal = Make(demo, FrontEndKind.IdealSource, 1e-3);
         _array = _shadowBoost.Array;
         _exact = _array.Solve(_array.UniformConditions(850, 40));

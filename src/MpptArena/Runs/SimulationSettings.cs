@@ -10,7 +10,7 @@ namespace MpptArena.Runs;
 /// <param name="SeriesIntervalS">Time series row interval [s]; zero for every plant step.</param>
 public sealed record SimulationSettings(
     double DurationS,
-    double PlantStepS = 100e-6,
+    double PlantStepS = 200e-6,
     double EnvironmentStepS = 1e-3,
     ulong Seed = 1,
     double ReprepareIrradianceWm2 = 1.0,

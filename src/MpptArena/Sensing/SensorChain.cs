@@ -3,12 +3,13 @@ namespace MpptArena.Sensing;
 /// <summary>
 /// The voltage and current ADC channels of one tracker with their averaging schedule: the N
 /// conversions of one tracker sample are spread evenly over the averaging window that ends at the
-/// sample instant, each at a plant step.
+/// sample instant, each at the plant step nearest its time (several at one step when the window is
+/// shorter than N plant steps; each conversion still draws its own noise).
 /// </summary>
 public sealed class SensorChain
 {
     private readonly AdcChannel _voltage, _current;
-    private readonly bool[] _convertAtStep;
+    private readonly int[] _conversionsAtStep;
     private long _vSum, _iSum;
     private int _count;
 
@@ -17,24 +18,26 @@ public sealed class SensorChain
     {
         _voltage = new AdcChannel(settings.Voltage, DeterministicRandom.Derive(seed, 1));
         _current = new AdcChannel(settings.Current, DeterministicRandom.Derive(seed, 2));
-        _convertAtStep = new bool[stepsPerSample];
+        _conversionsAtStep = new int[stepsPerSample];
         int n = Math.Max(1, Math.Max(settings.Voltage.AveragingSamples, settings.Current.AveragingSamples));
         double window = Math.Max(settings.Voltage.AveragingWindowS, settings.Current.AveragingWindowS);
         for (int j = 0; j < n; j++)
         {
             int back = n == 1 ? 0 : (int)Math.Round(j * window / (n - 1) / plantStepS);
             back = Math.Clamp(back, 0, stepsPerSample - 1);
-            _convertAtStep[stepsPerSample - 1 - back] = true;
+            _conversionsAtStep[stepsPerSample - 1 - back]++;
         }
     }
 
     /// <summary>Called at every plant step with its index within the sample period (0-based; the last index is the sample instant).</summary>
     public void OnPlantStep(int stepInSample, double trueVoltageV, double trueCurrentA)
     {
-        if (!_convertAtStep[stepInSample]) return;
-        _vSum += _voltage.Convert(trueVoltageV);
-        _iSum += _current.Convert(trueCurrentA);
-        _count++;
+        for (int k = _conversionsAtStep[stepInSample]; k > 0; k--)
+        {
+            _vSum += _voltage.Convert(trueVoltageV);
+            _iSum += _current.Convert(trueCurrentA);
+            _count++;
+        }
     }
 
     /// <summary>Averaged codes and scaled values of the sample just completed; clears the sums.</summary>
