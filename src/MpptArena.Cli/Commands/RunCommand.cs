@@ -60,7 +60,7 @@ internal static class RunCommand
                 throw new ArenaInputException($"--seed '{seedText}' must be a whole number of at least 0", "--seed");
             s = s with { Simulation = s.Simulation with { Seed = seed } };
         }
-        if (a.Option("--full-series") is not null || a.Flag("--full-series"))
+        if (a.Flag("--full-series"))
         {
             s = s with { Simulation = s.Simulation with { SeriesIntervalS = 0 } };
         }

@@ -249,8 +249,7 @@ public sealed class ScenarioRunner
         var r = s.Array.Module.Reference;
         var text = string.Join("|",
             string.Format(inv, "{0:R},{1:R},{2:R},{3:R},{4:R},{5},{6:R}", r.PhotocurrentA, r.SaturationCurrentA, r.ModifiedIdealityV, r.SeriesResistanceOhm, r.ShuntConductanceS, s.Array.Module.CellsInSeries, s.Array.Module.IscTemperatureCoefficientAPerK),
-            s.Array.Layout with { Bypass = s.Array.Layout.Bypass },
-            s.Array.Layout.Bypass, s.Array.Layout.Blocking?.ToString() ?? "none",
+            s.Array.Layout, s.Array.Layout.Blocking?.ToString() ?? "none",
             s.Converter, s.Sensors.Voltage, s.Sensors.Current);
         var hash = SHA256.HashData(Encoding.UTF8.GetBytes(text));
         return Convert.ToHexStringLower(hash)[..16];
