@@ -31,7 +31,8 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
     /// <summary>Converter parameters.</summary>
     protected ConverterSettings Settings { get; } = settings;
 
-    private double _v, _i, _duty, _pvCurrent, _integral, _sinceUpdateS;
+    private double _v, _i, _duty, _integral, _sinceUpdateS;
+    private PreparedArrayCurve? _lastCurve;
     private EnergyLedger _energy;
 
     private double Kv => 2 * Math.PI * Settings.VoltageLoopBandwidthHz * Settings.InputCapacitanceF;
@@ -56,14 +57,14 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
         _integral = 0;
         _sinceUpdateS = double.PositiveInfinity;
         _energy = default;
-        _pvCurrent = 0;
+        _lastCurve = null;
     }
 
     /// <inheritdoc/>
     public double PvVoltageV => _v;
 
     /// <inheritdoc/>
-    public double PvCurrentA => _pvCurrent;
+    public double PvCurrentA => _lastCurve?.CurrentAtVoltage(_v) ?? 0.0;
 
     /// <summary>Inductor current [A].</summary>
     public double InductorCurrentA => _i;
@@ -96,20 +97,24 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
         // Continuous (analog) loops: the duty cycle follows the state inside every stage of the step, so
         // the model does not change with the plant step; digital loops hold it between updates.
         bool continuous = kind == TrackerCommandKind.VoltageReference && Settings.VoltageLoopRateHz <= 0;
-        double ipv = curve.CurrentAtVoltage(_v);
+        _lastCurve = curve;
         if (kind == TrackerCommandKind.DutyCycle)
         {
             _duty = Math.Clamp(command, Settings.MinDuty, Settings.MaxDuty);
         }
         else if (continuous)
         {
-            double error = _v - command;
-            double duty = DutyForInputCurrent(_v, _i, ipv + Kv * error + Ki * _integral);
-            double clamped = Math.Clamp(duty, Settings.MinDuty, Settings.MaxDuty);
-            if (Ki > 0 && (clamped == duty || Math.Sign(error) != Math.Sign(_integral))) _integral += error * dtS;
+            if (Ki > 0)
+            {
+                double error = _v - command;
+                double duty = DutyForInputCurrent(_v, _i, curve.CurrentAtVoltage(_v) + Kv * error + Ki * _integral);
+                double clamped = Math.Clamp(duty, Settings.MinDuty, Settings.MaxDuty);
+                if (clamped == duty || Math.Sign(error) != Math.Sign(_integral)) _integral += error * dtS;
+            }
         }
         else if (_sinceUpdateS >= LoopPeriodS(dtS))
         {
+            double ipv = curve.CurrentAtVoltage(_v);
             double error = _v - command;
             double duty = DutyForInputCurrent(_v, _i, ipv + Kv * error + Ki * _integral);
             double clamped = Math.Clamp(duty, Settings.MinDuty, Settings.MaxDuty);
@@ -138,8 +143,7 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
             _energy.LossJ += 0.5 * Settings.InductanceH * _i * _i;
             _i = 0;
         }
-        _pvCurrent = curve.CurrentAtVoltage(_v);
-        if (continuous) _duty = DutyAt(law, _v, _i, _pvCurrent);
+        if (continuous) _duty = DutyAt(law, _v, _i, curve.CurrentAtVoltage(_v));
     }
 
     /// <summary>How the duty cycle is found inside a step.</summary>

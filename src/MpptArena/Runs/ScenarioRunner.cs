@@ -110,12 +110,13 @@ public sealed class ScenarioRunner
                 var kind = lane.Tracker.CommandKind;
                 for (int s = 0; s < substeps; s++) lane.FrontEnd.Step(hSub, curve, lane.Command, kind);
                 double p = (lane.FrontEnd.Energy.FromArrayJ - e0) / h;
-                double v = lane.FrontEnd.PvVoltageV, i = lane.FrontEnd.PvCurrentA;
-                lane.Scorer.Observe(new PlantSample(t, h, v, i, p, mpp.PowerW, mpp.VoltageV, multi, peaks.IsOnGlobalHill(v), t - lastChangeS, lane.Command));
-                if (lane.Sink is not null) WriteSeries(lane, sim.SeriesIntervalS, t, v, i, p, mpp, h);
+                double v = lane.FrontEnd.PvVoltageV;
+                lane.Scorer.Observe(new PlantSample(t, h, v, p, mpp.PowerW, mpp.VoltageV, multi, peaks.IsOnGlobalHill(v), t - lastChangeS, lane.Command));
+                if (lane.Sink is not null) WriteSeries(lane, sim.SeriesIntervalS, t, v, lane.FrontEnd.PvCurrentA, p, mpp, h);
 
+                // The current is evaluated only where something reads it (the front ends compute it lazily).
                 int stepInSample = (int)((n - 1) % lane.StepsPerSample);
-                lane.Sensors.OnPlantStep(stepInSample, v, i);
+                lane.Sensors.OnPlantStep(stepInSample, lane.FrontEnd);
                 if (stepInSample == lane.StepsPerSample - 1)
                 {
                     var (vc, ic, vs, cs, conversions) = lane.Sensors.TakeSample();

@@ -40,6 +40,12 @@ public sealed class SensorChain
         }
     }
 
+    /// <summary>As <see cref="OnPlantStep(int, double, double)"/>, reading the front end's voltage and current only when a conversion is due.</summary>
+    public void OnPlantStep(int stepInSample, Plant.IFrontEnd frontEnd)
+    {
+        if (_conversionsAtStep[stepInSample] > 0) OnPlantStep(stepInSample, frontEnd.PvVoltageV, frontEnd.PvCurrentA);
+    }
+
     /// <summary>Averaged codes and scaled values of the sample just completed; clears the sums.</summary>
     public (double VoltageCode, double CurrentCode, double VoltageV, double CurrentA, int Conversions) TakeSample()
     {

@@ -17,7 +17,7 @@ public class ScorerTests
             double t = k * Dt;
             events?.Invoke(scorer, t);
             var (p, v) = f(t);
-            scorer.Observe(new PlantSample(t, Dt, v, p / v, p, pmpp, vmpp, false, true, t, v));
+            scorer.Observe(new PlantSample(t, Dt, v, p, pmpp, vmpp, false, true, t, v));
         }
         return scorer.Finish(n * Dt);
     }
@@ -82,7 +82,7 @@ public class ScorerTests
         for (int k = 1; k <= 1000; k++)
         {
             bool onGlobal = k > 250;
-            scorer.Observe(new PlantSample(k * Dt, Dt, 300, 2, onGlobal ? 1000 : 600, 1000, 300, true, onGlobal, 1, 300));
+            scorer.Observe(new PlantSample(k * Dt, Dt, 300, onGlobal ? 1000 : 600, 1000, 300, true, onGlobal, 1, 300));
         }
         var s = scorer.Finish(1);
         Assert.Equal(0.75, s.GlobalPeakTimeShare!.Value, 9);
