@@ -45,7 +45,9 @@ public readonly record struct SubstringModel(
         }
         else
         {
-            lo = -BypassIdealityVoltageV * Math.Log((currentA - isc) / BypassSaturationCurrentA + 1.0);
+            // Widened by a hundredth of n Vt: at the bound itself f is zero up to rounding, and a rounding
+            // of the wrong sign would leave the bracket without a sign change (seen for dark substrings).
+            lo = -BypassIdealityVoltageV * (Math.Log((currentA - isc) / BypassSaturationCurrentA + 1.0) + 0.01);
             hi = 0.0;
             v = lo;
         }
