@@ -7,36 +7,29 @@ namespace MpptArena.Reports.Plots;
 public static class CurvePlots
 {
     /// <summary>The I-V curve with the maxima marked.</summary>
-    public static Plot CurrentVoltage(string title, double[] voltageV, double[] currentA, PowerPeaks peaks)
-    {
-        var plot = new Plot();
-        var line = plot.Add.ScatterLine(voltageV, currentA);
-        line.LegendText = "I-V curve";
-        line.LineWidth = 2;
-        line.Color = Colors.Navy;
-        MarkPeaks(plot, peaks, p => p.CurrentA);
-        plot.Title($"I-V curve, {title}");
-        plot.XLabel("array voltage [V]");
-        plot.YLabel("array current [A]");
-        plot.Axes.SetLimitsY(0, currentA.Max() * 1.1);
-        plot.ShowLegend(Alignment.LowerLeft);
-        return plot;
-    }
+    public static Plot CurrentVoltage(string title, double[] voltageV, double[] currentA, PowerPeaks peaks) =>
+        Curve(voltageV, currentA, peaks, p => p.CurrentA, "I-V", Colors.Navy, $"I-V curve, {title}", "array current [A]",
+            currentA.Max() * 1.1, Alignment.LowerLeft);
 
     /// <summary>The P-V curve with the maxima marked.</summary>
-    public static Plot PowerVoltage(string title, double[] voltageV, double[] currentA, PowerPeaks peaks)
+    public static Plot PowerVoltage(string title, double[] voltageV, double[] currentA, PowerPeaks peaks) =>
+        Curve(voltageV, voltageV.Zip(currentA, (v, i) => v * i).ToArray(), peaks, p => p.PowerW, "P-V", Colors.DarkGreen,
+            $"P-V curve, {title}", "array power [W]", peaks.Global.PowerW * 1.15, Alignment.UpperLeft);
+
+    private static Plot Curve(double[] voltageV, double[] y, PowerPeaks peaks, Func<PowerPeak, double> peakY, string name,
+        Color color, string title, string yLabel, double yMax, Alignment legend)
     {
         var plot = new Plot();
-        var line = plot.Add.ScatterLine(voltageV, voltageV.Zip(currentA, (v, i) => v * i).ToArray());
-        line.LegendText = "P-V curve";
+        var line = plot.Add.ScatterLine(voltageV, y);
+        line.LegendText = $"{name} curve";
         line.LineWidth = 2;
-        line.Color = Colors.DarkGreen;
-        MarkPeaks(plot, peaks, p => p.PowerW);
-        plot.Title($"P-V curve, {title}");
+        line.Color = color;
+        MarkPeaks(plot, peaks, peakY);
+        plot.Title(title);
         plot.XLabel("array voltage [V]");
-        plot.YLabel("array power [W]");
-        plot.Axes.SetLimitsY(0, peaks.Global.PowerW * 1.15);
-        plot.ShowLegend(Alignment.UpperLeft);
+        plot.YLabel(yLabel);
+        plot.Axes.SetLimitsY(0, yMax);
+        plot.ShowLegend(legend);
         return plot;
     }
 
