@@ -20,7 +20,7 @@ public sealed class PreparedArrayCurve : IArrayCurve
     public const double RelativeCurrentTolerance = 1e-6;
 
     /// <summary>Voltage tolerance of each substring table [V].</summary>
-    public const double SubstringVoltageToleranceV = 1e-4;
+    public const double SubstringVoltageToleranceV = 5e-5;
 
     /// <summary>
     /// Prepares <paramref name="exact"/> for fast evaluation. Strings are tabulated from 2 % above the largest

@@ -4,11 +4,15 @@ namespace MpptArena.Arrays;
 
 /// <summary>
 /// One substring's characteristic tabulated for fast inverse evaluation, V(I). The nodes are placed in
-/// voltage, where the characteristic is explicit (I(V) = I_cells(V) + I_bypass(V): one Lambert W per
-/// node, no iteration), and refined until the monotone cubic in current misses the exact curve by less
-/// than the voltage tolerance at every interval's midpoint.
+/// the cells' diode voltage Vd = V + I Rs, along which the whole characteristic is explicit (no Lambert W,
+/// no iteration): I_cells = IL - I0 [exp(Vd/a) - 1] - Vd/Rsh, V = Vd - I_cells Rs, and the bypass diode
+/// adds Is [exp(-V/(n Vt)) - 1] at that terminal voltage. V rises strictly with Vd
+/// (dV/dVd = 1 + Rs (I0/a exp(Vd/a) + 1/Rsh) &gt; 0), so the nodes come out ordered. They are refined until
+/// the monotone cubic in current misses the exact curve by less than the voltage tolerance at every
+/// interval's midpoint.
 /// </summary>
-/// <remarks>Interpolation: piecewise-cubic Hermite with exact slopes limited for monotonicity
+/// <remarks>Single-diode model: De Soto, Klein and Beckman, Solar Energy 80 (2006) 78-88, eq. 1.
+/// Interpolation: piecewise-cubic Hermite with exact slopes limited for monotonicity
 /// (Fritsch and Carlson, SIAM J. Numer. Anal. 17(2), 1980).</remarks>
 internal sealed class SubstringTable
 {
@@ -21,52 +25,74 @@ internal sealed class SubstringTable
     {
         // The range ends need only bracket the currents, not hit them: the cells' closed-form voltage at
         // the lowest current (the bypass diode only leaks there), and at the highest the voltage at which
-        // the diode alone would carry the excess over the cells' short-circuit current.
-        double vHigh = Math.Max(Pv.SingleDiodeModel.VoltageAtCurrent(model.Cells, lowCurrentA), model.BypassIdealityVoltageV);
-        double excess = Math.Max(highCurrentA - model.ShortCircuitCurrentA, 1e-12);
-        double vLow = -model.BypassIdealityVoltageV * Math.Log(excess / model.BypassSaturationCurrentA + 1.0) - model.BypassIdealityVoltageV;
-        var seeds = new List<double> { vLow, vHigh, 0.0 };
-        const int uniform = 12;
-        for (int k = 1; k < uniform; k++) seeds.Add(vLow + (vHigh - vLow) * k / uniform);
-        // The bypass diode turns on over a few tenths of a volt below zero.
+        // the diode alone would carry the excess over the cells' short-circuit current. Each end is
+        // mapped to its diode voltage once (one closed-form solve each).
+        var cells = model.Cells;
+        double rs = cells.SeriesResistanceOhm;
         double nvt = model.BypassIdealityVoltageV;
-        foreach (double m in new[] { 1.0, 3.0, 6.0, 10.0 }) seeds.Add(-m * nvt);
-        seeds.RemoveAll(v => v < vLow || v > vHigh);
-        seeds.Sort();
-        var nodes = new List<Node>(64);
-        foreach (double v in seeds.Distinct()) nodes.Add(Evaluate(model, v));
+        double vHigh = Math.Max(Pv.SingleDiodeModel.VoltageAtCurrent(cells, lowCurrentA), nvt);
+        double excess = Math.Max(highCurrentA - model.ShortCircuitCurrentA, 1e-12);
+        double vLow = -nvt * Math.Log(excess / model.BypassSaturationCurrentA + 1.0) - nvt;
+        double vdHigh = vHigh + Pv.SingleDiodeModel.CurrentAtVoltage(cells, vHigh) * rs;
+        double vdLow = vLow + Pv.SingleDiodeModel.CurrentAtVoltage(cells, vLow) * rs;
 
-        var result = new List<Node>(128) { nodes[0] };
-        var work = new Stack<(Node A, Node B, int Depth)>();
-        for (int k = nodes.Count - 2; k >= 0; k--) work.Push((nodes[k], nodes[k + 1], 0));
-        while (work.Count > 0)
+        // Seeds: a uniform spread, plus where the bypass diode turns on, a few tenths of a volt below
+        // zero terminal voltage (Vd is about V + Isc Rs there; seeds only guide the refinement).
+        double shift = model.ShortCircuitCurrentA * rs;
+        Span<double> seeds = stackalloc double[20];
+        int count = 0;
+        const int uniform = 12;
+        seeds[count++] = vdLow;
+        seeds[count++] = vdHigh;
+        for (int k = 1; k < uniform; k++) seeds[count++] = vdLow + (vdHigh - vdLow) * k / uniform;
+        seeds[count++] = shift;
+        foreach (double m in (ReadOnlySpan<double>)[1.0, 3.0, 6.0, 10.0]) seeds[count++] = shift - m * nvt;
+        seeds = seeds[..count];
+        seeds.Sort();
+
+        // Depth-first refinement, left to right: the stack holds the pending right ends (at most the
+        // seeds plus one per level of depth), the left end is the last node accepted.
+        const int MaxDepth = 40;
+        Span<Node> pending = stackalloc Node[seeds.Length + MaxDepth + 1];
+        Span<int> depths = stackalloc int[seeds.Length + MaxDepth + 1];
+        int top = 0;
+        for (int k = seeds.Length - 1; k >= 0; k--)
         {
-            var (a, b, depth) = work.Pop();
-            var m = Evaluate(model, 0.5 * (a.VoltageV + b.VoltageV));
+            double vd = seeds[k];
+            if (vd < vdLow || vd > vdHigh || (top > 0 && vd >= pending[top - 1].DiodeVoltageV)) continue;
+            pending[top] = Evaluate(model, vd);
+            depths[top++] = 0;
+        }
+        var accepted = new Node[128];
+        int n = 0;
+        var a = accepted[n++] = pending[--top];
+        while (top > 0)
+        {
+            var b = pending[top - 1];
+            int depth = depths[top - 1];
+            var m = Evaluate(model, 0.5 * (a.DiodeVoltageV + b.DiodeVoltageV));
             bool inside = m.CurrentA < a.CurrentA && m.CurrentA > b.CurrentA;
-            if (inside && depth < 40)
+            if (inside && depth < MaxDepth && Math.Abs(Hermite(b, a, m.CurrentA) - m.VoltageV) > voltageToleranceV)
             {
-                double predicted = Hermite(b, a, m.CurrentA);
-                if (Math.Abs(predicted - m.VoltageV) > voltageToleranceV)
-                {
-                    work.Push((m, b, depth + 1));
-                    work.Push((a, m, depth + 1));
-                    continue;
-                }
+                depths[top - 1] = depth + 1;
+                pending[top] = m;
+                depths[top++] = depth + 1;
+                continue;
             }
-            result.Add(b);
+            if (n == accepted.Length) Array.Resize(ref accepted, 2 * n);
+            accepted[n++] = a = b;
+            top--;
         }
         // Store in ascending current (descending voltage).
-        result.Reverse();
-        int n = result.Count;
         _currentA = new double[n];
         _voltageV = new double[n];
         _slopeVPerA = new double[n];
         for (int k = 0; k < n; k++)
         {
-            _currentA[k] = result[k].CurrentA;
-            _voltageV[k] = result[k].VoltageV;
-            _slopeVPerA[k] = result[k].SlopeVPerA;
+            var node = accepted[n - 1 - k];
+            _currentA[k] = node.CurrentA;
+            _voltageV[k] = node.VoltageV;
+            _slopeVPerA[k] = node.SlopeVPerA;
         }
         MonotoneHermite.LimitSlopes(_currentA, _voltageV, _slopeVPerA);
     }
@@ -74,12 +100,21 @@ internal sealed class SubstringTable
     /// <summary>Nodes in the table.</summary>
     public int NodeCount => _currentA.Length;
 
-    private readonly record struct Node(double VoltageV, double CurrentA, double SlopeVPerA);
+    private readonly record struct Node(double DiodeVoltageV, double VoltageV, double CurrentA, double SlopeVPerA);
 
-    private static Node Evaluate(in SubstringModel model, double v)
+    /// <summary>The substring's operating point at cell diode voltage <paramref name="vd"/> [V], all explicit.</summary>
+    private static Node Evaluate(in SubstringModel model, double vd)
     {
-        double i = model.CurrentAndSlopeAtVoltage(v, out double slope);
-        return new Node(v, i, 1.0 / slope);
+        var p = model.Cells;
+        double e = Math.Exp(Math.Min(vd / p.ModifiedIdealityV, 700.0));
+        double ic = p.PhotocurrentA - p.SaturationCurrentA * (e - 1.0) - p.ShuntConductanceS * vd;
+        double dIcdVd = -p.SaturationCurrentA / p.ModifiedIdealityV * e - p.ShuntConductanceS;
+        double v = vd - ic * p.SeriesResistanceOhm;
+        double dVdVd = 1.0 - p.SeriesResistanceOhm * dIcdVd;
+        double eb = Math.Exp(Math.Min(-v / model.BypassIdealityVoltageV, 700.0));
+        double ib = model.BypassSaturationCurrentA * (eb - 1.0);
+        double dIdV = dIcdVd / dVdVd - model.BypassSaturationCurrentA / model.BypassIdealityVoltageV * eb;
+        return new Node(vd, v, ic + ib, 1.0 / dIdV);
     }
 
     private static double Hermite(Node lo, Node hi, double i)

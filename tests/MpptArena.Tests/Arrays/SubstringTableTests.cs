@@ -1,0 +1,37 @@
+using MpptArena.Arrays;
+
+namespace MpptArena.Tests.Arrays;
+
+public class SubstringTableTests
+{
+    [Theory]
+    [InlineData(1000.0, 25.0)]
+    [InlineData(150.0, 60.0)]
+    [InlineData(1400.0, -30.0)]
+    [InlineData(3.0, 10.0)]
+    [InlineData(0.0, 40.0)]
+    public void TableFromTheDiodeVoltageMatchesTheNewtonSolveEverywhere(double irradianceWm2, double temperatureC)
+    {
+        // The table is built along the diode voltage Vd = V + I Rs, where the single-diode equation
+        // (De Soto, Klein, Beckman, Solar Energy 80, 2006, eq. 1) and the bypass diode are explicit; it
+        // must reproduce the terminal voltage that the safeguarded Newton solve of the same equations
+        // gives, over the whole current range including the bypass region and the reverse range.
+        var array = ReferenceModules.Array(1, 1);
+        var conditions = array.UniformConditions(irradianceWm2, temperatureC);
+        var substring = array.Solve(conditions).Strings[0].DistinctSubstrings[0];
+        double isc = Math.Max(substring.ShortCircuitCurrentA, 1e-3);
+        double low = -5 * isc, high = 1.02 * isc + 1e-3, tolerance = PreparedArrayCurve.SubstringVoltageToleranceV;
+        var table = new SubstringTable(substring, low, high, tolerance);
+        int hint = 0;
+        double worst = 0;
+        for (int k = 0; k <= 2000; k++)
+        {
+            double i = low + (high - low) * k / 2000;
+            double tabulated = table.VoltageAtCurrent(i, out _, ref hint);
+            double exact = substring.VoltageAtCurrent(i, out _);
+            worst = Math.Max(worst, Math.Abs(tabulated - exact));
+        }
+        // The refinement tests midpoints only; a few times the tolerance allows for the rest of each interval.
+        Assert.True(worst < 4 * tolerance, $"worst voltage error {worst:E2} V");
+    }
+}
