@@ -8,21 +8,52 @@ namespace MpptArena.Environment;
 /// <param name="Shading">Shades, applied one after the other.</param>
 public sealed record EnvironmentModel(PiecewiseLinearProfile Irradiance, TemperatureModel Temperature, IReadOnlyList<IShading> Shading)
 {
-    /// <summary>Writes every substring's irradiance and cell temperature at <paramref name="timeS"/> into <paramref name="target"/>.</summary>
+    /// <summary>
+    /// Writes every substring's irradiance and cell temperature at <paramref name="timeS"/> into
+    /// <paramref name="target"/> and the shading factors into <paramref name="factors"/>; returns true if
+    /// any value written differs from what the arrays held before.
+    /// </summary>
     /// <param name="timeS">Simulation time [s].</param>
-    /// <param name="target">Conditions to fill.</param>
-    /// <param name="factors">Scratch array of the substring count (avoids allocating each call).</param>
-    public void Evaluate(double timeS, ArrayConditions target, double[] factors)
+    /// <param name="target">Conditions to overwrite.</param>
+    /// <param name="factors">Shading transmittance of each substring [-], overwritten.</param>
+    public bool Evaluate(double timeS, ArrayConditions target, double[] factors)
     {
         double g = Math.Max(Irradiance.ValueAt(timeS), 0.0);
         double temperature = Temperature.Profile.ValueAt(timeS);
-        Array.Fill(factors, 1.0);
-        for (int s = 0; s < Shading.Count; s++) Shading[s].Apply(timeS, factors);
+        bool changed = false;
+        if (Shading.Count > 0)
+        {
+            var before = System.Buffers.ArrayPool<double>.Shared.Rent(factors.Length);
+            factors.AsSpan().CopyTo(before);
+            Array.Fill(factors, 1.0);
+            for (int s = 0; s < Shading.Count; s++) Shading[s].Apply(timeS, factors);
+            changed = !factors.AsSpan().SequenceEqual(before.AsSpan(0, factors.Length));
+            System.Buffers.ArrayPool<double>.Shared.Return(before);
+        }
+        else if (factors.Length > 0 && factors[0] != 1.0)
+        {
+            Array.Fill(factors, 1.0);
+            changed = true;
+        }
+        // Substrings under the same irradiance share one cell-temperature evaluation.
+        double lastG = double.NaN, lastT = double.NaN;
+        var irradiance = target.IrradianceWm2;
+        var cellTemperature = target.CellTemperatureC;
         for (int k = 0; k < factors.Length; k++)
         {
             double gk = g * factors[k];
-            target.IrradianceWm2[k] = gk;
-            target.CellTemperatureC[k] = Temperature.CellTemperatureFromProfileValue(temperature, gk);
+            if (gk != lastG)
+            {
+                lastG = gk;
+                lastT = Temperature.CellTemperatureFromProfileValue(temperature, gk);
+            }
+            if (irradiance[k] != gk || cellTemperature[k] != lastT)
+            {
+                irradiance[k] = gk;
+                cellTemperature[k] = lastT;
+                changed = true;
+            }
         }
+        return changed;
     }
 }

@@ -1,4 +1,5 @@
 using MpptArena.Arrays;
+using MpptArena.Numerics;
 using MpptArena.Trackers;
 
 namespace MpptArena.Plant;
@@ -32,6 +33,7 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
     protected ConverterSettings Settings { get; } = settings;
 
     private double _v, _i, _duty, _integral, _sinceUpdateS;
+    private double _maxStableStepS = double.PositiveInfinity;
     private PreparedArrayCurve? _lastCurve;
     private EnergyLedger _energy;
 
@@ -88,11 +90,106 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
         return Math.Max(Math.Max(rc, lc), Math.Max(voltageLoop, currentLoop));
     }
 
+    /// <inheritdoc/>
+    public void SetStabilityBound(double maxConductanceS, double stabilityLimit)
+    {
+        double rate = FastestRateEstimatePerS(maxConductanceS);
+        _maxStableStepS = rate > 0 ? stabilityLimit / rate : double.PositiveInfinity;
+    }
+
+    /// <summary>
+    /// True when, with continuous loops and a voltage reference, the inductor current is the converter's
+    /// input current and the current loop makes L di/dt = Kc (i_ref - i) exactly (the boost); the closed
+    /// loop can then be propagated exponentially (<see cref="TryClosedLoopStep"/>).
+    /// </summary>
+    protected virtual bool InductorCarriesInputCurrent => false;
+
     private double LoopPeriodS(double dtS) =>
         Settings.VoltageLoopRateHz > 0 ? 1.0 / Settings.VoltageLoopRateHz - 0.5 * dtS : 0.0;
 
     /// <inheritdoc/>
+    /// <remarks>
+    /// With continuous loops on a topology whose closed loop is linear apart from the array's incremental
+    /// conductance (<see cref="InductorCarriesInputCurrent"/>), the whole step is one exponential
+    /// propagation (<see cref="TryClosedLoopStep"/>), stable and exact for any step while the conductance
+    /// holds. Otherwise (duty-cycle commands, digital or integrating loops, a saturated modulator, a blocking
+    /// diode) classical RK4 runs in equal sub-steps no longer than the stability bound.
+    /// </remarks>
     public void Step(double dtS, PreparedArrayCurve curve, double command, TrackerCommandKind kind)
+    {
+        if (kind == TrackerCommandKind.VoltageReference && Settings.VoltageLoopRateHz <= 0 && Ki == 0
+            && InductorCarriesInputCurrent && TryClosedLoopStep(dtS, curve, command))
+        {
+            return;
+        }
+        int substeps = dtS <= _maxStableStepS ? 1 : (int)Math.Ceiling(dtS / _maxStableStepS);
+        double h = dtS / substeps;
+        for (int k = 0; k < substeps; k++) RungeKuttaStep(h, curve, command, kind);
+    }
+
+    /// <summary>
+    /// One step of the closed voltage and current loops as an exponential propagation. In the deviations
+    /// u = v - v_ref and x = i - i_ref(v), with i_ref = i_pv(v) + Kv u, the loops give exactly
+    /// C du/dt = -Kv u - x and dx/dt = -(Kc/L) x - (g + Kv) du/dt, where g = di_pv/dv is the array's
+    /// incremental conductance: a linear system once g is held. g is taken at the step's midpoint
+    /// (predicted with g at its start), so the step is the exponential midpoint rule (second order, exact
+    /// for a straight characteristic; M. Hochbruck, A. Ostermann, "Exponential integrators", Acta Numerica
+    /// 19, 2010, 209-286). The energy ledger is integrated by Simpson's rule over start, midpoint and end.
+    /// Returns false, leaving the state untouched, when the modulator would saturate or the inductor
+    /// current would reverse anywhere on those three points; the caller then integrates the step by RK4.
+    /// </summary>
+    private bool TryClosedLoopStep(double h, PreparedArrayCurve curve, double vRef)
+    {
+        double c = Settings.InputCapacitanceF;
+        double kv = Kv, lambda = Kc / Settings.InductanceH;
+        double v0 = _v, i0 = _i;
+        double ipv0 = curve.CurrentAtVoltage(v0, out double g0);
+        double u0 = v0 - vRef, x0 = i0 - ipv0 - kv * u0;
+
+        // Predictor: conductance at the start, half a step, to find the midpoint's conductance.
+        var (uP, _) = Propagator(g0, 0.5 * h, c, kv, lambda).Times(u0, x0);
+        curve.CurrentAtVoltage(vRef + uP, out double gMid);
+        var half = Propagator(gMid, 0.5 * h, c, kv, lambda);
+        var (uM, xM) = half.Times(u0, x0);
+        var (u1, x1) = half.Times(uM, xM);
+
+        double vM = vRef + uM, v1 = vRef + u1;
+        double ipvM = curve.CurrentAtVoltage(vM), ipv1 = curve.CurrentAtVoltage(v1);
+        double iM = xM + ipvM + kv * uM, i1 = x1 + ipv1 + kv * u1;
+        if (!InLinearRange(v0, i0, ipv0 + kv * u0, out double p0Out)
+            || !InLinearRange(vM, iM, ipvM + kv * uM, out double pMOut)
+            || !InLinearRange(v1, i1, ipv1 + kv * u1, out double p1Out))
+        {
+            return false;
+        }
+        double r = Settings.InductorResistanceOhm;
+        _energy.FromArrayJ += h / 6 * (v0 * ipv0 + 4 * vM * ipvM + v1 * ipv1);
+        _energy.DeliveredJ += h / 6 * (p0Out + 4 * pMOut + p1Out);
+        _energy.LossJ += h / 6 * r * (i0 * i0 + 4 * iM * iM + i1 * i1);
+        _v = v1;
+        _i = i1;
+        _duty = DutyForInputCurrent(v1, i1, ipv1 + kv * u1);
+        _lastCurve = curve;
+        _sinceUpdateS = double.PositiveInfinity;
+        return true;
+    }
+
+    /// <summary>exp(A t) of the closed loop in (u, x) with the array conductance <paramref name="g"/> [S] held.</summary>
+    private static MatrixExponential2 Propagator(double g, double t, double c, double kv, double lambda)
+    {
+        double sigma = (g + kv) / c;
+        return MatrixExponential2.Of(-kv / c, -1.0 / c, sigma * kv, sigma - lambda, t);
+    }
+
+    /// <summary>True when the loops at this point neither saturate the modulator nor reverse the inductor current; gives the output power [W].</summary>
+    private bool InLinearRange(double v, double i, double inputCurrentRefA, out double pOut)
+    {
+        double d = DutyForInputCurrent(v, i, inputCurrentRefA);
+        StateDerivatives(v, Math.Max(i, 0.0), d, 0.0, out _, out _, out pOut);
+        return i >= 0 && d >= Settings.MinDuty && d <= Settings.MaxDuty;
+    }
+
+    private void RungeKuttaStep(double dtS, PreparedArrayCurve curve, double command, TrackerCommandKind kind)
     {
         // Continuous (analog) loops: the duty cycle follows the state inside every stage of the step, so
         // the model does not change with the plant step; digital loops hold it between updates.

@@ -8,6 +8,9 @@ namespace MpptArena.Plant;
 public sealed class BoostFrontEnd(ConverterSettings settings) : AveragedConverter(settings)
 {
     /// <inheritdoc/>
+    protected override bool InductorCarriesInputCurrent => true;
+
+    /// <inheritdoc/>
     protected override void StateDerivatives(double v, double i, double d, double ipv, out double dv, out double di, out double pOut)
     {
         double vOut = (1 - d) * Settings.BusVoltageV;

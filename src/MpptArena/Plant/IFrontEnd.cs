@@ -35,4 +35,11 @@ public interface IFrontEnd
 
     /// <summary>Fastest eigenvalue magnitude of the linearised dynamics for a curve slope [1/s], for step-size checks.</summary>
     double FastestRateEstimatePerS(double maxConductanceS);
+
+    /// <summary>
+    /// Tells the front end the largest incremental conductance of the array [S] it will see, so that a
+    /// step it integrates explicitly is split into sub-steps with h |lambda_max| within
+    /// <paramref name="stabilityLimit"/>.
+    /// </summary>
+    void SetStabilityBound(double maxConductanceS, double stabilityLimit);
 }

@@ -70,4 +70,10 @@ public sealed class IdealSourceFrontEnd(ConverterSettings settings) : IFrontEnd
 
     /// <inheritdoc/>
     public double FastestRateEstimatePerS(double maxConductanceS) => 0; // exact integration: no stability limit
+
+    /// <inheritdoc/>
+    public void SetStabilityBound(double maxConductanceS, double stabilityLimit)
+    {
+        // Exact integration: nothing to split.
+    }
 }

@@ -18,8 +18,9 @@ namespace MpptArena.Runs;
 /// <remarks>
 /// Per plant step h: (1) at every environment step the irradiance, temperature and shading are
 /// evaluated at the step's start and held; the curve is re-prepared when they moved beyond the
-/// thresholds (<see cref="ArrayCurveCache"/>); (2) each front end advances by h (split into equal
-/// sub-steps when h exceeds the integrator's stability limit for the plant's fastest mode);
+/// thresholds (<see cref="ArrayCurveCache"/>); (2) each front end advances by h (exponentially in
+/// one piece where its closed loop allows, otherwise split into equal sub-steps within the integrator's
+/// stability limit for the plant's fastest mode);
 /// (3) the scorer takes the step; (4) the ADCs convert where the averaging schedule says; (5) at each
 /// tracker sample instant the tracker is called and its command takes effect from the next step.
 /// </remarks>
@@ -50,11 +51,11 @@ public sealed class ScenarioRunner
         Array.Copy(factors, previousFactors, substrings);
         cache.Update(conditions);
 
-        int substeps = SubstepsFor(scenario, h);
-        double hSub = h / substeps;
+        double maxConductanceS = MaxConductanceS(scenario);
         var lanes = scenario.Trackers.Select((spec, index) => CreateLane(scenario, spec, index, h, sinkFor)).ToList();
         foreach (var lane in lanes)
         {
+            lane.FrontEnd.SetStabilityBound(maxConductanceS, StabilityLimit);
             lane.FrontEnd.Reset(cache.Curve.OpenCircuitVoltageV);
             lane.Scorer.MarkEvent(0.0, TrackerScorer.StartupLabel);
             try
@@ -82,11 +83,15 @@ public sealed class ScenarioRunner
             double tStart = (n - 1) * h, t = n * h;
             if ((n - 1) % envEvery == 0 && n > 1)
             {
-                env.Evaluate(tStart, conditions, factors);
-                string? eventLabel = DetectEvent(scenario, lastTickS, tStart, factors, previousFactors);
-                if (ConditionsChanged(conditions, cache, factors, previousFactors) || eventLabel is not null) lastChangeS = tStart;
-                Array.Copy(factors, previousFactors, substrings);
-                cache.Update(conditions);
+                // Nothing below runs per substring unless the sky actually moved since the last tick.
+                bool changed = env.Evaluate(tStart, conditions, factors);
+                string? eventLabel = DetectEvent(scenario, lastTickS, tStart, changed, factors, previousFactors);
+                if (changed || eventLabel is not null) lastChangeS = tStart;
+                if (changed)
+                {
+                    Array.Copy(factors, previousFactors, substrings);
+                    cache.Update(conditions);
+                }
                 if (eventLabel is not null)
                 {
                     foreach (var lane in lanes) if (lane.Failure is null) lane.Scorer.MarkEvent(tStart, eventLabel);
@@ -108,7 +113,7 @@ public sealed class ScenarioRunner
                 if (lane.Failure is not null) continue;
                 double e0 = lane.FrontEnd.Energy.FromArrayJ;
                 var kind = lane.Tracker.CommandKind;
-                for (int s = 0; s < substeps; s++) lane.FrontEnd.Step(hSub, curve, lane.Command, kind);
+                lane.FrontEnd.Step(h, curve, lane.Command, kind);
                 double p = (lane.FrontEnd.Energy.FromArrayJ - e0) / h;
                 double v = lane.FrontEnd.PvVoltageV;
                 lane.Scorer.Observe(new PlantSample(t, h, v, p, mpp.PowerW, mpp.VoltageV, multi, peaks.IsOnGlobalHill(v), t - lastChangeS, lane.Command));
@@ -145,16 +150,23 @@ public sealed class ScenarioRunner
             cache.Preparations, wall.Elapsed.TotalSeconds);
     }
 
-    /// <summary>Sub-steps per plant step so that h |lambda_max| stays within <see cref="StabilityLimit"/>.</summary>
+    /// <summary>
+    /// Sub-steps per plant step that an explicitly integrated step needs so that h |lambda_max| stays within
+    /// <see cref="StabilityLimit"/> (the front ends split a step themselves; exponential steps need none).
+    /// </summary>
     public static int SubstepsFor(Scenario scenario, double plantStepS)
     {
-        var frontEnd = CreateFrontEnd(scenario.Converter);
-        // The array's largest incremental conductance is near and above open circuit, brightest and coldest.
+        double rate = CreateFrontEnd(scenario.Converter).FastestRateEstimatePerS(MaxConductanceS(scenario));
+        return Math.Max(1, (int)Math.Ceiling(plantStepS * rate / StabilityLimit));
+    }
+
+    /// <summary>The array's largest incremental conductance [S]: near and above open circuit, brightest and coldest.</summary>
+    public static double MaxConductanceS(Scenario scenario)
+    {
         var bright = scenario.Array.UniformConditions(1500, -40);
         var curve = new PreparedArrayCurve(scenario.Array.Solve(bright));
         curve.CurrentAtVoltage(1.1 * curve.OpenCircuitVoltageV, out double slope);
-        double rate = frontEnd.FastestRateEstimatePerS(Math.Abs(slope));
-        return Math.Max(1, (int)Math.Ceiling(plantStepS * rate / StabilityLimit));
+        return Math.Abs(slope);
     }
 
     /// <summary>The front end a converter description asks for.</summary>
@@ -195,26 +207,17 @@ public sealed class ScenarioRunner
         };
     }
 
-    private static string? DetectEvent(Scenario scenario, double fromS, double toS, double[] factors, double[] previous)
+    private static string? DetectEvent(Scenario scenario, double fromS, double toS, bool changed, double[] factors, double[] previous)
     {
         var env = scenario.Environment;
         if (env.Irradiance.HasBreakpointIn(fromS + 1e-12, toS + 1e-12)) return "irradiance change";
         if (env.Temperature.Profile.HasBreakpointIn(fromS + 1e-12, toS + 1e-12)) return "temperature change";
+        if (!changed) return null;
         for (int k = 0; k < factors.Length; k++)
         {
             if (Math.Abs(factors[k] - previous[k]) > 0.01) return "shading change";
         }
         return null;
-    }
-
-    private static bool ConditionsChanged(ArrayConditions c, ArrayCurveCache cache, double[] factors, double[] previous)
-    {
-        var p = cache.PreparedConditions;
-        for (int k = 0; k < factors.Length; k++)
-        {
-            if (factors[k] != previous[k] || c.IrradianceWm2[k] != p.IrradianceWm2[k] || c.CellTemperatureC[k] != p.CellTemperatureC[k]) return true;
-        }
-        return false;
     }
 
     private static void WriteSeries(TrackerLane lane, double interval, double t, double v, double i, double p, PowerPeak mpp, double h)

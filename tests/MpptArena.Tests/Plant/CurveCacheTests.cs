@@ -13,7 +13,8 @@ public class CurveCacheTests
         const double dG = 1.0;
         var array = ReferenceModules.Array(10, 2);
         var cache = new ArrayCurveCache(array, dG, 0.2);
-        var prepared = array.UniformConditions(700, 35);
+        // 36 degC lies on the temperature grid (twice the 0.2 K threshold), so only irradiance drifts here.
+        var prepared = array.UniformConditions(700, 36);
         prepared.IrradianceWm2[4] = 300;
         Assert.True(cache.Update(prepared));
         var drifted = prepared.Clone();
@@ -30,5 +31,30 @@ public class CurveCacheTests
         }
         drifted.IrradianceWm2[0] += 0.01; // now beyond dG for substring 0
         Assert.True(cache.Update(drifted));
+        Assert.Equal(2, cache.Preparations);
+    }
+
+    [Fact]
+    public void ReturningToConditionsSeenBeforeReusesTheirCurve()
+    {
+        // A ramp up and back down passes the same rounded conditions twice: the second pass must serve
+        // the stored curves, and they must be the very curves a fresh preparation gives (no state leaks).
+        var array = ReferenceModules.Array(10, 2);
+        var cache = new ArrayCurveCache(array, 1.0, 0.2);
+        var c = array.UniformConditions(400, 36);
+        var fresh = new ArrayCurveCache(array, 1.0, 0.2);
+        for (double g = 400; g <= 420; g += 0.5) { c.IrradianceWm2.AsSpan().Fill(g); cache.Update(c); }
+        int built = cache.Preparations;
+        Assert.Equal(11, built); // 400, 402, ..., 420
+        for (double g = 420; g >= 400; g -= 0.5)
+        {
+            c.IrradianceWm2.AsSpan().Fill(g);
+            cache.Update(c);
+            fresh.Update(c);
+            Assert.Equal(fresh.Peaks.Global.PowerW, cache.Peaks.Global.PowerW);
+            Assert.Equal(fresh.Curve.CurrentAtVoltage(300), cache.Curve.CurrentAtVoltage(300));
+        }
+        Assert.Equal(built, cache.Preparations);
+        Assert.True(cache.Reuses >= 10);
     }
 }
