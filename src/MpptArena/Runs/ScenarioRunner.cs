@@ -188,6 +188,10 @@ public sealed class ScenarioRunner
             throw new ArenaInputException($"tracker '{spec.Name}' commands a {kind}, which the {scenario.Converter.Kind} front end does not accept; use a boost or buck converter", "converter");
         }
         var (min, max) = frontEnd.CommandRange(kind);
+        if (!SimulationSettings.IsWholeNumberOfSteps(spec.SamplePeriodS, h))
+        {
+            throw new ArenaInputException($"tracker '{spec.Name}': period {spec.SamplePeriodS * 1e3:0.###} ms is not a whole number of plant steps ({h * 1e6:0.###} us); choose a period that is a multiple of the plant step or set simulation.plant_step_us to a divisor of it", "period_ms");
+        }
         int stepsPerSample = Math.Max(1, (int)Math.Round(spec.SamplePeriodS / h));
         var sensors = scenario.Sensors;
         var context = new TrackerContext(stepsPerSample * h, min, max, scenario.NominalOpenCircuitVoltageV, scenario.NominalShortCircuitCurrentA,

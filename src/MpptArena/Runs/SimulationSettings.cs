@@ -1,8 +1,10 @@
+using MpptArena.Plant;
+
 namespace MpptArena.Runs;
 
 /// <summary>Time stepping of a run.</summary>
 /// <param name="DurationS">Simulated time [s].</param>
-/// <param name="PlantStepS">Plant integration step [s].</param>
+/// <param name="PlantStepS">Plant integration step [s]; scenarios that leave it out get <see cref="DefaultPlantStepS"/>.</param>
 /// <param name="EnvironmentStepS">Interval at which irradiance, temperature and shading are re-evaluated [s]; held in between.</param>
 /// <param name="Seed">Seed of all random streams (sensor noise) [-].</param>
 /// <param name="ReprepareIrradianceWm2">Re-prepare the array curve when any substring's irradiance has moved this far [W/m2].</param>
@@ -15,4 +17,39 @@ public sealed record SimulationSettings(
     ulong Seed = 1,
     double ReprepareIrradianceWm2 = 1.0,
     double ReprepareTemperatureC = 0.2,
-    double SeriesIntervalS = 0.01);
+    double SeriesIntervalS = 0.01)
+{
+    /// <summary>
+    /// Largest default step [s] per front end: 1 ms where the step is integrated exactly or exponentially
+    /// (ideal source; boost with continuous loops), 200 us where classical RK4 carries the loops (buck).
+    /// The convergence tests show that halving these steps changes run energy by far less than 0.1 %.
+    /// </summary>
+    public static double LargestDefaultStepS(FrontEndKind frontEnd) => frontEnd == FrontEndKind.Buck ? 200e-6 : 1e-3;
+
+    /// <summary>
+    /// The default plant step [s]: the largest step no longer than <see cref="LargestDefaultStepS"/> that
+    /// divides every tracker period (their greatest common divisor, split into equal parts).
+    /// </summary>
+    public static double DefaultPlantStepS(FrontEndKind frontEnd, IEnumerable<double> samplePeriodsS)
+    {
+        double largest = LargestDefaultStepS(frontEnd);
+        long gcdNs = 0;
+        foreach (double period in samplePeriodsS) gcdNs = Gcd(gcdNs, Math.Max(1, (long)Math.Round(period * 1e9)));
+        if (gcdNs == 0) return largest;
+        double gcdS = gcdNs * 1e-9;
+        return gcdS / Math.Ceiling(gcdS / largest * (1 - 1e-12));
+    }
+
+    /// <summary>True when <paramref name="periodS"/> is a whole number (at least one) of steps <paramref name="stepS"/>.</summary>
+    public static bool IsWholeNumberOfSteps(double periodS, double stepS)
+    {
+        double ratio = periodS / stepS;
+        return ratio >= 1 - 1e-9 && Math.Abs(ratio - Math.Round(ratio)) <= 1e-6 * ratio;
+    }
+
+    private static long Gcd(long a, long b)
+    {
+        while (b != 0) (a, b) = (b, a % b);
+        return a;
+    }
+}

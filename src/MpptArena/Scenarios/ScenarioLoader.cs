@@ -126,8 +126,15 @@ public static class ScenarioLoader
         var windows = new List<ScoringWindow>();
         var environment = ReadEnvironment(Required(root, "environment", EnvironmentKeys),
             array, file, baseDirectory, windows);
-        var simulation = ReadSimulation(Required(root, "simulation", ["duration_s", "plant_step_us", "environment_step_ms", "seed", "reprepare_irradiance_w_m2", "reprepare_temperature_c", "series_interval_ms"]), environment);
-        var trackers = ReadTrackers(root, registry, simulation, baseDirectory);
+        var simulationMap = Required(root, "simulation", ["duration_s", "plant_step_us", "environment_step_ms", "seed", "reprepare_irradiance_w_m2", "reprepare_temperature_c", "series_interval_ms"]);
+        var simulation = ReadSimulation(simulationMap, environment, converter.Kind);
+        var trackers = ReadTrackers(root, registry, simulationMap.Has("plant_step_us") ? simulation : null, baseDirectory);
+        if (!simulationMap.Has("plant_step_us"))
+        {
+            // A step that divides every tracker period and the environment step.
+            double step = SimulationSettings.DefaultPlantStepS(converter.Kind, trackers.Select(t => t.SamplePeriodS).Append(simulation.EnvironmentStepS));
+            simulation = simulation with { PlantStepS = step };
+        }
         var scoring = ReadScoring(root.Map("scoring", ["settling_band_fraction", "settling_hold_s", "static_allowance_s", "windows", "curve_snapshots_s"]), windows, simulation);
         return new Scenario(name, description, array, converter, sensors, environment, simulation, trackers, scoring);
     }
@@ -253,7 +260,7 @@ public static class ScenarioLoader
         return new EnvironmentModel(irradiance, temperature, shading);
     }
 
-    private static SimulationSettings ReadSimulation(YamlMap s, EnvironmentModel environment)
+    private static SimulationSettings ReadSimulation(YamlMap s, EnvironmentModel environment, FrontEndKind frontEnd)
     {
         var d = new SimulationSettings(1);
         // Without duration_s the run lasts as long as the irradiance and temperature profiles.
@@ -263,9 +270,11 @@ public static class ScenarioLoader
             throw new ArenaInputException("missing required key 'duration_s' in 'scenario.simulation' (the profiles are constant, so they give no length): expected a number greater than zero", "duration_s", s.Location);
         }
         double duration = s.Positive("duration_s", profileEnd);
-        double step = s.Number("plant_step_us", d.PlantStepS * 1e6, 1, 10_000) * 1e-6;
+        // Without plant_step_us the step is chosen once the tracker periods are known (SimulationSettings.DefaultPlantStepS);
+        // until then the front end's largest default stands in for the checks below.
+        double step = s.Number("plant_step_us", SimulationSettings.DefaultPlantStepS(frontEnd, []) * 1e6, 1, 10_000) * 1e-6;
         double env = s.Number("environment_step_ms", d.EnvironmentStepS * 1e3, 0.001, 10_000) * 1e-3;
-        if (env < step) throw s.Error(s.Node("environment_step_ms")!, "'environment_step_ms' must not be shorter than the plant step", "environment_step_ms");
+        if (s.Has("plant_step_us") && env < step) throw s.Error(s.Node("environment_step_ms")!, "'environment_step_ms' must not be shorter than the plant step", "environment_step_ms");
         if (duration / step > 2e9) throw s.Error(s.Node("duration_s")!, "duration_s / plant_step is over 2e9 steps; use a longer plant step", "duration_s");
         string seedText = s.Has("seed") ? s.Scalar(s.Node("seed")!, "seed") : "1";
         if (!ulong.TryParse(seedText, out ulong seed)) throw s.Error(s.Node("seed")!, $"'seed' = '{seedText}' must be a whole number from 0 to 18446744073709551615", "seed");
@@ -273,7 +282,7 @@ public static class ScenarioLoader
             s.Positive("reprepare_temperature_c", d.ReprepareTemperatureC), s.Number("series_interval_ms", d.SeriesIntervalS * 1e3, 0) * 1e-3);
     }
 
-    private static IReadOnlyList<TrackerSpec> ReadTrackers(YamlMap root, TrackerRegistry registry, SimulationSettings sim, string baseDirectory)
+    private static IReadOnlyList<TrackerSpec> ReadTrackers(YamlMap root, TrackerRegistry registry, SimulationSettings? givenStep, string baseDirectory)
     {
         var seq = root.Sequence("trackers") ?? throw new ArenaInputException("missing required list 'trackers' in 'scenario'", "trackers", root.Location);
         if (seq.Children.Count == 0) throw root.Error(seq, "'trackers' is empty: name at least one tracker", "trackers");
@@ -289,7 +298,10 @@ public static class ScenarioLoader
             string name = t.Text("name", kind);
             if (specs.Any(s => s.Name == name)) throw t.Error(t.Node("name") ?? item, $"tracker name '{name}' is used twice; names must be unique", "name");
             double periodS = t.Number("period_ms", 10, 0.001, 3_600_000) * 1e-3;
-            if (periodS < sim.PlantStepS * 0.999) throw t.Error(t.Node("period_ms")!, "'period_ms' is shorter than the plant step", "period_ms");
+            if (givenStep is { } sim && !SimulationSettings.IsWholeNumberOfSteps(periodS, sim.PlantStepS))
+            {
+                throw t.Error(t.Node("period_ms")!, $"'period_ms' = {periodS * 1e3:0.###} is not a whole number of plant steps ({sim.PlantStepS * 1e6:0.###} us); make it a multiple of simulation.plant_step_us, or leave plant_step_us out to have a step chosen", "period_ms");
+            }
             var given = new Dictionary<string, double>(StringComparer.Ordinal);
             var pm = t.Has("parameters") ? new YamlMap(t.Node("parameters")!, root.File, $"{t.Path}.parameters", descriptor.Parameters.Select(p => p.Name).ToArray()) : null;
             if (pm is not null)

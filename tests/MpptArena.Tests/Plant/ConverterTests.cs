@@ -134,3 +134,75 @@ public class ConverterLoopOptionTests
         Assert.Equal(290, boost.PvVoltageV, 0.3);
     }
 }
+
+public class ExponentialStepTests
+{
+    /// <summary>
+    /// Straightforward classical RK4 of the boost average model with the cascaded loops written out from
+    /// its state equations (Erickson and Maksimovic 2001, ch. 2: L di/dt = v - (1 - d) V_bus - R_L i,
+    /// C dv/dt = i_pv(v) - i), evaluating the exact array solve, at a step far below every time constant.
+    /// </summary>
+    private static (double[] V, double EnergyJ) Reference(ExactArrayCurve exact, ConverterSettings s, double v0, double[] commands, double periodS, double h)
+    {
+        double c = s.InputCapacitanceF, l = s.InductanceH, r = s.InductorResistanceOhm;
+        double kv = 2 * Math.PI * s.VoltageLoopBandwidthHz * c, kc = 2 * Math.PI * s.CurrentLoopBandwidthHz * l;
+        double v = v0, i = 0, energy = 0;
+        var samples = new double[commands.Length];
+        int perPeriod = (int)Math.Round(periodS / h);
+        for (int k = 0; k < commands.Length; k++)
+        {
+            double vRef = commands[k];
+            (double Dv, double Di, double P) F(double vv, double ii)
+            {
+                double ipv = exact.CurrentAtVoltage(vv);
+                double vOut = Math.Clamp(vv - r * ii - kc * (ipv + kv * (vv - vRef) - ii), (1 - s.MaxDuty) * s.BusVoltageV, s.BusVoltageV);
+                return ((ipv - ii) / c, (vv - vOut - r * ii) / l, vv * ipv);
+            }
+            for (int n = 0; n < perPeriod; n++)
+            {
+                var k1 = F(v, i);
+                var k2 = F(v + 0.5 * h * k1.Dv, i + 0.5 * h * k1.Di);
+                var k3 = F(v + 0.5 * h * k2.Dv, i + 0.5 * h * k2.Di);
+                var k4 = F(v + h * k3.Dv, i + h * k3.Di);
+                v += h / 6 * (k1.Dv + 2 * k2.Dv + 2 * k3.Dv + k4.Dv);
+                i = Math.Max(0, i + h / 6 * (k1.Di + 2 * k2.Di + 2 * k3.Di + k4.Di));
+                energy += h / 6 * (k1.P + 2 * k2.P + 2 * k3.P + k4.P);
+            }
+            samples[k] = v;
+        }
+        return (samples, energy);
+    }
+
+    [Theory]
+    [InlineData(false)]
+    [InlineData(true)]
+    public void OneMillisecondExponentialStepsFollowAFineRungeKuttaReference(bool partialShade)
+    {
+        // A perturb-and-observe-like staircase of references (3 V steps every 10 ms, then a 60 V jump across
+        // the knee of a partly shaded string) at the default 1 ms step against RK4 at 20 us (h |lambda| below 0.15) on the exact solve.
+        var array = ReferenceModules.Array(10, 1);
+        var conditions = array.UniformConditions(900, 40);
+        if (partialShade) for (int k = 0; k < 9; k++) conditions.IrradianceWm2[k] = 350;
+        var exact = array.Solve(conditions);
+        var curve = new PreparedArrayCurve(exact);
+        var settings = new ConverterSettings(FrontEndKind.Boost);
+        var commands = new double[24];
+        for (int k = 0; k < commands.Length; k++) commands[k] = k < 12 ? 300 + 3 * (k % 4) : 240 + 3 * (k % 3);
+        double voc = curve.OpenCircuitVoltageV;
+        var (reference, referenceJ) = Reference(exact, settings, voc, commands, 10e-3, 20e-6);
+
+        var boost = new BoostFrontEnd(settings);
+        boost.Reset(voc);
+        double worst = 0;
+        for (int k = 0; k < commands.Length; k++)
+        {
+            for (int n = 0; n < 10; n++) boost.Step(1e-3, curve, commands[k], TrackerCommandKind.VoltageReference);
+            worst = Math.Max(worst, Math.Abs(boost.PvVoltageV - reference[k]));
+        }
+        // Measured when written: 0.3 mV and 0.1 mV; energy 1.0e-4 and 0.6e-4 apart (the prepared curve's own
+        // power error is up to 5e-5 of MPP power, the rest is Simpson's rule over the 1 ms start-up transient).
+        Assert.True(worst < 0.01, $"worst voltage difference at the sample instants {worst:F4} V");
+        double energy = boost.Energy.FromArrayJ;
+        Assert.True(Math.Abs(energy - referenceJ) / referenceJ < 3e-4, $"energy {energy:F4} J against {referenceJ:F4} J");
+    }
+}

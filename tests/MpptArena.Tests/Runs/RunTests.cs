@@ -5,11 +5,11 @@ namespace MpptArena.Tests.Runs;
 
 public class RunTests
 {
-    private static string NoisyBoost(string seed, string step = "200") => TestScenarios.Yaml(
+    private static string NoisyBoost(string seed, string? step = "200") => TestScenarios.Yaml(
         converter: "type: boost\n  bus_voltage_v: 700",
         environment: "irradiance_w_m2:\n    - start: 900\n    - hold_s: 0.5\n    - ramp: { to: 500, rate_per_s: 400 }\n    - hold_s: 0.5\n  cell_temperature_c: 40",
         trackers: "- { name: po, type: perturb_observe, period_ms: 10 }\n- { name: inc, type: incremental_conductance, period_ms: 10 }",
-        simulation: $"duration_s: 2.5\n  plant_step_us: {step}\n  seed: {seed}",
+        simulation: step is null ? $"duration_s: 2.5\n  seed: {seed}" : $"duration_s: 2.5\n  plant_step_us: {step}\n  seed: {seed}",
         sensors: "voltage: { bits: 12, full_scale_v: 500, noise_rms_v: 0.5 }\n  current: { bits: 12, full_scale_a: 12, noise_rms_a: 0.02 }");
 
     private static string SummaryText(RunResult r) => SummaryJson.Serialize(SummaryBuilder.Build(r));
@@ -27,14 +27,46 @@ public class RunTests
     [Fact]
     public void HalvingThePlantStepChangesRunEnergyByLessThanOneTenthOfAPercent()
     {
-        // Convergence of the integrator at the default step (200 us) against 100 us.
-        var coarse = TestScenarios.Run(NoisyBoost("5", "200"));
+        // Convergence of the integrator at the default step (1 ms for the boost: exponential steps) against
+        // half of it and against a tenth of it.
+        var coarse = TestScenarios.Run(NoisyBoost("5", null));
+        Assert.Equal(1e-3, coarse.PlantStepS, 12);
+        var half = TestScenarios.Run(NoisyBoost("5", "500"));
         var fine = TestScenarios.Run(NoisyBoost("5", "100"));
+        for (int k = 0; k < coarse.Trackers.Count; k++)
+        {
+            double e1 = coarse.Trackers[k].Scores!.EnergyWh, e2 = half.Trackers[k].Scores!.EnergyWh, e3 = fine.Trackers[k].Scores!.EnergyWh;
+            Assert.True(Math.Abs(e1 - e2) / e2 < 1e-3, $"{coarse.Trackers[k].Name}: {e1:F6} Wh at 1 ms, {e2:F6} Wh at 500 us");
+            Assert.True(Math.Abs(e1 - e3) / e3 < 1e-3, $"{coarse.Trackers[k].Name}: {e1:F6} Wh at 1 ms, {e3:F6} Wh at 100 us");
+        }
+    }
+
+    [Fact]
+    public void BuckDefaultStepConvergesToo()
+    {
+        // The buck keeps RK4 (its loop is not linear in the state): default 200 us against 100 us.
+        string Buck(string? step) => NoisyBoost("5", step).Replace("type: boost\n  bus_voltage_v: 700", "type: buck\n  battery_voltage_v: 200");
+        var coarse = TestScenarios.Run(Buck(null));
+        Assert.Equal(200e-6, coarse.PlantStepS, 12);
+        var fine = TestScenarios.Run(Buck("100"));
         for (int k = 0; k < coarse.Trackers.Count; k++)
         {
             double e1 = coarse.Trackers[k].Scores!.EnergyWh, e2 = fine.Trackers[k].Scores!.EnergyWh;
             Assert.True(Math.Abs(e1 - e2) / e2 < 1e-3, $"{coarse.Trackers[k].Name}: {e1:F6} Wh at 200 us, {e2:F6} Wh at 100 us");
         }
+    }
+
+    [Theory]
+    [InlineData("boost", new[] { 10.0, 15.0 }, 1000.0)]
+    [InlineData("boost", new[] { 2.5 }, 500.0)] // with the 1 ms environment step: gcd 0.5 ms
+    [InlineData("boost", new[] { 0.5, 20.0 }, 500.0)]
+    [InlineData("buck", new[] { 10.0 }, 200.0)]
+    public void DefaultStepDividesEveryTrackerPeriod(string converter, double[] periodsMs, double expectedUs)
+    {
+        var kind = converter == "buck" ? MpptArena.Plant.FrontEndKind.Buck : MpptArena.Plant.FrontEndKind.Boost;
+        double step = SimulationSettings.DefaultPlantStepS(kind, periodsMs.Select(p => p * 1e-3).Append(1e-3));
+        Assert.Equal(expectedUs, step * 1e6, 6);
+        foreach (double p in periodsMs) Assert.True(SimulationSettings.IsWholeNumberOfSteps(p * 1e-3, step));
     }
 
     [Fact]

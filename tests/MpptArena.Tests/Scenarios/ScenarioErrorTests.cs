@@ -24,6 +24,15 @@ public class ScenarioErrorTests
     }
 
     [Fact]
+    public void PeriodThatIsNotAWholeNumberOfPlantStepsIsRefused()
+    {
+        string yaml = TestScenarios.Yaml(trackers: "- { name: po, type: perturb_observe, period_ms: 2.5 }", simulation: "duration_s: 1\n  plant_step_us: 1000");
+        var e = Fails(yaml);
+        Assert.Equal(LineOf(yaml, "period_ms: 2.5"), e.Location!.Line);
+        Assert.Contains("not a whole number of plant steps", e.Message);
+    }
+
+    [Fact]
     public void WrongTypeIsReportedAtTheValue()
     {
         string yaml = TestScenarios.Yaml(simulation: "duration_s: soon\n  plant_step_us: 100");
