@@ -43,10 +43,17 @@ public class PlantStepBenchmarks
         _lane.Command = 600;
     }
 
-    [Benchmark(Description = "boost step, 50 us, voltage reference")]
+    [Benchmark(Description = "boost step, 1 ms, voltage reference (exponential closed loop, the default)")]
     public double BoostStep()
     {
-        _boost.Step(50e-6, _curve, 600, TrackerCommandKind.VoltageReference);
+        _boost.Step(1e-3, _curve, 600, TrackerCommandKind.VoltageReference);
+        return _boost.PvVoltageV;
+    }
+
+    [Benchmark(Description = "boost step, 200 us, duty-cycle command (RK4)")]
+    public double BoostDutyStep()
+    {
+        _boost.Step(200e-6, _curve, 0.2, TrackerCommandKind.DutyCycle);
         return _boost.PvVoltageV;
     }
 

@@ -29,13 +29,16 @@ public sealed class PreparedArrayCurve : IArrayCurve
     /// </summary>
     /// <param name="exact">The exact characteristic.</param>
     /// <param name="tables">Cache of substring tables shared across preparations, or null.</param>
-    public PreparedArrayCurve(ExactArrayCurve exact, SubstringTableCache? tables = null)
+    /// <param name="strings">Cache of string curves shared across preparations, or null.</param>
+    public PreparedArrayCurve(ExactArrayCurve exact, SubstringTableCache? tables = null, StringCurveCache? strings = null)
     {
         Exact = exact;
         double iscMax = Math.Max(exact.Strings.Max(s => s.MaxShortCircuitCurrentA), 1e-3);
         double low = -5.0 * iscMax, high = 1.02 * iscMax + 1e-3;
         _strings = exact.Strings
-            .Select(s => new PreparedStringCurve(s, low, high, RelativeCurrentTolerance * iscMax, SubstringVoltageToleranceV, tables))
+            .Select(s => strings is null
+                ? new PreparedStringCurve(s, low, high, RelativeCurrentTolerance * iscMax, SubstringVoltageToleranceV, tables)
+                : strings.Get(s, low, high, RelativeCurrentTolerance * iscMax, SubstringVoltageToleranceV, tables))
             .ToArray();
         _counts = exact.StringCounts.ToArray();
         _array = _strings.Length == 1 && _counts[0] == 1 ? _strings[0].ToCubic() : Combine(_strings, _counts);

@@ -11,7 +11,7 @@ public sealed record EnvironmentModel(PiecewiseLinearProfile Irradiance, Tempera
     /// <summary>
     /// Writes every substring's irradiance and cell temperature at <paramref name="timeS"/> into
     /// <paramref name="target"/> and the shading factors into <paramref name="factors"/>; returns true if
-    /// any value written differs from what the arrays held before.
+    /// any irradiance or temperature written differs from what <paramref name="target"/> held before.
     /// </summary>
     /// <param name="timeS">Simulation time [s].</param>
     /// <param name="target">Conditions to overwrite.</param>
@@ -21,14 +21,16 @@ public sealed record EnvironmentModel(PiecewiseLinearProfile Irradiance, Tempera
         double g = Math.Max(Irradiance.ValueAt(timeS), 0.0);
         double temperature = Temperature.Profile.ValueAt(timeS);
         bool changed = false;
+        if (Shading.Count == 0 && factors.Length > 0 && factors[0] == 1.0 && target.IrradianceWm2[0] == g
+            && target.CellTemperatureC[0] == Temperature.CellTemperatureFromProfileValue(temperature, g))
+        {
+            return false; // unshaded, so every substring was written with these same two values last time
+        }
         if (Shading.Count > 0)
         {
-            var before = System.Buffers.ArrayPool<double>.Shared.Rent(factors.Length);
-            factors.AsSpan().CopyTo(before);
+            // A change of shade shows as a change of irradiance below (none under a dark sky, where it does not matter).
             Array.Fill(factors, 1.0);
             for (int s = 0; s < Shading.Count; s++) Shading[s].Apply(timeS, factors);
-            changed = !factors.AsSpan().SequenceEqual(before.AsSpan(0, factors.Length));
-            System.Buffers.ArrayPool<double>.Shared.Return(before);
         }
         else if (factors.Length > 0 && factors[0] != 1.0)
         {

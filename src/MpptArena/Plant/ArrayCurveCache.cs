@@ -28,6 +28,7 @@ public sealed class ArrayCurveCache
     private readonly double _irradianceGridWm2, _temperatureGridC;
     private readonly ArrayConditions _prepared, _rounded;
     private readonly SubstringTableCache _tables = new();
+    private readonly StringCurveCache _strings = new();
     private readonly Dictionary<ConditionsKey, (PreparedArrayCurve Curve, PowerPeaks Peaks)> _store = [];
     private long _storedNodes;
     private bool _hasCurve;
@@ -54,6 +55,9 @@ public sealed class ArrayCurveCache
     /// <summary>Substring tables built and reused so far.</summary>
     public SubstringTableCache Tables => _tables;
 
+    /// <summary>String curves tabulated and reused so far.</summary>
+    public StringCurveCache Strings => _strings;
+
     /// <summary>Curves prepared so far (store misses).</summary>
     public int Preparations { get; private set; }
 
@@ -76,7 +80,7 @@ public sealed class ArrayCurveCache
         }
         else
         {
-            var curve = new PreparedArrayCurve(_array.Solve(_prepared), _tables);
+            var curve = new PreparedArrayCurve(_array.Solve(_prepared), _tables, _strings);
             entry = (curve, MppSearch.FindPeaks(curve, Math.Max(400, 25 * _array.Layout.SubstringsPerString)));
             if (_storedNodes + curve.NodeCount > MaxStoredNodes)
             {
