@@ -41,7 +41,7 @@ public sealed class PreparedArrayCurve : IArrayCurve
                 : strings.Get(s, low, high, RelativeCurrentTolerance * iscMax, SubstringVoltageToleranceV, tables))
             .ToArray();
         _counts = exact.StringCounts.ToArray();
-        _array = _strings.Length == 1 && _counts[0] == 1 ? _strings[0].ToCubic() : Combine(_strings, _counts);
+        _array = _strings.Length == 1 ? _strings[0].ToCubic(_counts[0]) : Combine(_strings, _counts);
         OpenCircuitVoltageV = FindOpenCircuitVoltage();
     }
 

@@ -91,7 +91,7 @@ internal sealed class PreparedStringCurve
             _slopeAPerV[k] = nodes[k].SlopeAPerV;
         }
         MonotoneHermite.LimitSlopes(_voltageV, _currentA, _slopeAPerV);
-        _cubic = ToCubic();
+        _cubic = new PiecewiseCubic(_voltageV, _currentA, _slopeAPerV);
         OpenCircuitVoltageV = StringVoltage(0.0, out _);
     }
 
@@ -147,8 +147,8 @@ internal sealed class PreparedStringCurve
         // than 1/128 of the tabulated voltage range (found by the property tests: a 5.6 V interval over a
         // bypass knee once passed a midpoint test while missing the curve by 0.1 A).
         double maxWidthV = (nodes[^1].VoltageV - nodes[0].VoltageV) / 128.0;
-        var result = new List<Node>(nodes.Count * 2) { nodes[0] };
-        var work = new Stack<(Node A, Node B, int Depth)>();
+        var result = new List<Node>(Math.Max(nodes.Count * 3, 256)) { nodes[0] };
+        var work = new Stack<(Node A, Node B, int Depth)>(nodes.Count + 128);
         for (int k = nodes.Count - 2; k >= 0; k--) work.Push((nodes[k], nodes[k + 1], 0));
         while (work.Count > 0)
         {
@@ -178,8 +178,22 @@ internal sealed class PreparedStringCurve
         return Math.Abs(predicted - m.CurrentA) > toleranceA;
     }
 
-    /// <summary>The tabulated string characteristic I(V) as a fast piecewise cubic.</summary>
-    public PiecewiseCubic ToCubic() => new(_voltageV, _currentA, _slopeAPerV);
+    /// <summary>
+    /// The characteristic of <paramref name="count"/> such strings in parallel as a fast piecewise cubic
+    /// (the same nodes, currents and slopes times the count); the string's own for a count of one.
+    /// </summary>
+    public PiecewiseCubic ToCubic(int count = 1)
+    {
+        if (count == 1) return _cubic;
+        var current = new double[_currentA.Length];
+        var slope = new double[_slopeAPerV.Length];
+        for (int k = 0; k < current.Length; k++)
+        {
+            current[k] = count * _currentA[k];
+            slope[k] = count * _slopeAPerV[k];
+        }
+        return new PiecewiseCubic(_voltageV, current, slope);
+    }
 
     /// <summary>String current [A] at voltage [V] and dI/dV [A/V].</summary>
     public double CurrentAtVoltage(double voltageV, out double slopeAPerV) => _cubic.Evaluate(voltageV, out slopeAPerV);

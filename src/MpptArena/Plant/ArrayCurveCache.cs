@@ -21,8 +21,8 @@ namespace MpptArena.Plant;
 /// </remarks>
 public sealed class ArrayCurveCache
 {
-    /// <summary>Interpolation nodes kept in the store of prepared curves before it is emptied (about 50 MB).</summary>
-    public const long MaxStoredNodes = 2_000_000;
+    /// <summary>Interpolation nodes kept in the store of prepared curves before it is emptied (about 60 MB with their string curves).</summary>
+    public const long MaxStoredNodes = 1_000_000;
 
     private readonly PvArray _array;
     private readonly double _irradianceGridWm2, _temperatureGridC;

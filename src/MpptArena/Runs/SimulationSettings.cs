@@ -7,8 +7,8 @@ namespace MpptArena.Runs;
 /// <param name="PlantStepS">Plant integration step [s]; scenarios that leave it out get <see cref="DefaultPlantStepS"/>.</param>
 /// <param name="EnvironmentStepS">Interval at which irradiance, temperature and shading are re-evaluated [s]; held in between.</param>
 /// <param name="Seed">Seed of all random streams (sensor noise) [-].</param>
-/// <param name="ReprepareIrradianceWm2">Re-prepare the array curve when any substring's irradiance has moved this far [W/m2].</param>
-/// <param name="ReprepareTemperatureC">Re-prepare the array curve when any substring's temperature has moved this far [K].</param>
+/// <param name="ReprepareIrradianceWm2">Largest irradiance difference between the prepared curve and any substring [W/m2] (conditions are rounded to a grid of twice this; see <see cref="Plant.ArrayCurveCache"/>).</param>
+/// <param name="ReprepareTemperatureC">Largest temperature difference between the prepared curve and any substring [K] (grid of twice this).</param>
 /// <param name="SeriesIntervalS">Time series row interval [s]; zero for every plant step.</param>
 public sealed record SimulationSettings(
     double DurationS,

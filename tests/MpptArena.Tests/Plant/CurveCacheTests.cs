@@ -57,4 +57,34 @@ public class CurveCacheTests
         Assert.Equal(built, cache.Preparations);
         Assert.True(cache.Reuses >= 10);
     }
+
+    [Fact]
+    public void AStringWhoseSubstringsKeptTheirConditionsIsNotTabulatedAgain()
+    {
+        // Two strings; a shade moves over the first only. The second string's curve must be reused, and the
+        // array curve must equal one prepared from nothing (Kirchhoff: parallel strings add their currents).
+        var array = ReferenceModules.Array(10, 2);
+        var cache = new ArrayCurveCache(array, 1.0, 0.2);
+        var c = array.UniformConditions(800, 36);
+        c.IrradianceWm2[3] = 300;
+        cache.Update(c);
+        int built = cache.Strings.Built;
+        c.IrradianceWm2[3] = 800;
+        c.IrradianceWm2[5] = 400;
+        Assert.True(cache.Update(c));
+        Assert.Equal(built + 1, cache.Strings.Built);
+        Assert.True(cache.Strings.Reused >= 1);
+        // Series order does not matter (one current through all): the same shade on another substring of
+        // the string is the same string curve.
+        c.IrradianceWm2[5] = 800;
+        c.IrradianceWm2[7] = 400;
+        Assert.True(cache.Update(c));
+        Assert.Equal(built + 1, cache.Strings.Built);
+        var fresh = new PreparedArrayCurve(array.Solve(cache.PreparedConditions));
+        for (int k = 0; k <= 100; k++)
+        {
+            double v = fresh.OpenCircuitVoltageV * k / 100;
+            Assert.Equal(fresh.CurrentAtVoltage(v), cache.Curve.CurrentAtVoltage(v), 12);
+        }
+    }
 }
