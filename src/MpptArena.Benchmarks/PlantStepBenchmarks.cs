@@ -57,10 +57,10 @@ public class PlantStepBenchmarks
         return _boost.PvVoltageV;
     }
 
-    [Benchmark(Description = "ideal source step, 1 ms")]
+    [Benchmark(Description = "ideal source step, 10 ms (a tracker period, the default)")]
     public double IdealStep()
     {
-        _ideal.Step(1e-3, _curve, 600, TrackerCommandKind.VoltageReference);
+        _ideal.Step(10e-3, _curve, _t++ % 2 == 0 ? 600 : 603, TrackerCommandKind.VoltageReference);
         return _ideal.PvVoltageV;
     }
 

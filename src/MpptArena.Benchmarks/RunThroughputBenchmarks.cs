@@ -53,11 +53,11 @@ public class RunThroughputBenchmarks
             profile.TimesS.Select((t, i) => (t, i)).Where(x => x.t >= blockStart).Select(x => profile.Values[x.i]).ToList());
         var rampScenario = ramps with { Environment = ramps.Environment with { Irradiance = shifted } };
         _rampBoost = Make(rampScenario, FrontEndKind.Boost, 1e-3);
-        _rampIdeal = Make(rampScenario, FrontEndKind.IdealSource, 1e-3);
+        _rampIdeal = Make(rampScenario, FrontEndKind.IdealSource, 10e-3);
         _blockBoost = Make(rampScenario, FrontEndKind.Boost, 1e-3, 360);
-        _blockIdeal = Make(rampScenario, FrontEndKind.IdealSource, 1e-3, 360);
+        _blockIdeal = Make(rampScenario, FrontEndKind.IdealSource, 10e-3, 360);
         _shadowBoost = Make(demo, FrontEndKind.Boost, 1e-3, demo.Simulation.DurationS);
-        _shadowIdeal = Make(demo, FrontEndKind.IdealSource, 1e-3, demo.Simulation.DurationS);
+        _shadowIdeal = Make(demo, FrontEndKind.IdealSource, 10e-3, demo.Simulation.DurationS);
         _array = _shadowBoost.Array;
         _exact = _array.Solve(_array.UniformConditions(850, 40));
     }

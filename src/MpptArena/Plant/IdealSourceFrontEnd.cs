@@ -7,8 +7,15 @@ namespace MpptArena.Plant;
 /// An ideal voltage-controlled source: the PV voltage follows the reference through a first-order
 /// lag, v' = (v_ref - v)/tau, integrated exactly (v(t+h) = v_ref + (v - v_ref) e^(-h/tau)). The
 /// source cannot push current into the array, so the operating voltage is limited to [0, Voc].
-/// Energy over a step by Simpson's rule on the exact trajectory.
 /// </summary>
+/// <remarks>
+/// Energy over a step: with s = e^(-t/tau) the trajectory is linear in s, v = v_ref + dv s, and
+/// int P dt = P(v_ref) h + tau int_{s1}^{1} [P(v_ref + dv s) - P(v_ref)] / s ds (s1 = e^(-h/tau)), whose
+/// integrand is smooth even when the step spans many time constants. It is integrated by three-point
+/// Gauss-Legendre quadrature on panels no wider than 5 V of trajectory, split where the trajectory
+/// crosses open circuit (the clamp's kink) (Abramowitz and Stegun, Handbook of Mathematical Functions,
+/// 1964, 25.4.29). So a step may be as long as the tracker's sample period.
+/// </remarks>
 public sealed class IdealSourceFrontEnd(ConverterSettings settings) : IFrontEnd
 {
     private double _v, _vOperating, _i;
@@ -32,18 +39,49 @@ public sealed class IdealSourceFrontEnd(ConverterSettings settings) : IFrontEnd
     /// <inheritdoc/>
     public void Step(double dtS, PreparedArrayCurve curve, double command, TrackerCommandKind kind)
     {
-        double decay = Math.Exp(-dtS / settings.LagTimeConstantS);
-        double halfDecay = Math.Exp(-0.5 * dtS / settings.LagTimeConstantS);
+        double tau = settings.LagTimeConstantS;
+        double s1 = Math.Exp(-dtS / tau);
         double voc = curve.OpenCircuitVoltageV;
-        double p0 = Power(curve, _v, voc, out _);
-        double vMid = command + (_v - command) * halfDecay;
-        double pMid = Power(curve, vMid, voc, out _);
-        _v = command + (_v - command) * decay;
-        double p1 = Power(curve, _v, voc, out _i);
+        double dv = _v - command;
+        double pRef = Power(curve, command, voc, out _);
+        double e = pRef * dtS;
+        if (dv != 0)
+        {
+            // The clamp at open circuit puts a kink where v = Voc: s* = (Voc - v_ref)/dv.
+            double kink = (voc - command) / dv;
+            if (kink > s1 && kink < 1)
+            {
+                e += tau * (Deviation(curve, command, dv, pRef, voc, s1, kink) + Deviation(curve, command, dv, pRef, voc, kink, 1.0));
+            }
+            else
+            {
+                e += tau * Deviation(curve, command, dv, pRef, voc, s1, 1.0);
+            }
+        }
+        _v = command + dv * s1;
+        Power(curve, _v, voc, out _i);
         _vOperating = Math.Clamp(_v, 0.0, voc);
-        double e = dtS / 6.0 * (p0 + 4 * pMid + p1);
         _energy.FromArrayJ += e;
         _energy.DeliveredJ += e;
+    }
+
+    /// <summary>int_{a}^{b} [P(v_ref + dv s) - P(v_ref)] / s ds by three-point Gauss-Legendre on panels of at most 5 V of trajectory.</summary>
+    private static double Deviation(PreparedArrayCurve curve, double vRef, double dv, double pRef, double voc, double a, double b)
+    {
+        const double MaxPanelV = 5.0;
+        int panels = Math.Clamp((int)Math.Ceiling(Math.Abs(dv) * (b - a) / MaxPanelV), 1, 64);
+        double width = (b - a) / panels, sum = 0;
+        double x = Math.Sqrt(0.6);
+        for (int k = 0; k < panels; k++)
+        {
+            double mid = a + (k + 0.5) * width, half = 0.5 * width;
+            double s0 = mid - half * x, s2 = mid + half * x;
+            double f0 = (Power(curve, vRef + dv * s0, voc, out _) - pRef) / s0;
+            double fm = (Power(curve, vRef + dv * mid, voc, out _) - pRef) / mid;
+            double f2 = (Power(curve, vRef + dv * s2, voc, out _) - pRef) / s2;
+            sum += half * (5.0 / 9.0 * (f0 + f2) + 8.0 / 9.0 * fm);
+        }
+        return sum;
     }
 
     private static double Power(PreparedArrayCurve curve, double v, double voc, out double current)

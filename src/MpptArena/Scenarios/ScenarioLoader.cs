@@ -131,9 +131,13 @@ public static class ScenarioLoader
         var trackers = ReadTrackers(root, registry, simulationMap.Has("plant_step_us") ? simulation : null, baseDirectory);
         if (!simulationMap.Has("plant_step_us"))
         {
-            // A step that divides every tracker period and the environment step.
-            double step = SimulationSettings.DefaultPlantStepS(converter.Kind, trackers.Select(t => t.SamplePeriodS).Append(simulation.EnvironmentStepS));
-            simulation = simulation with { PlantStepS = step };
+            // A step that divides every tracker period (and the environment step when one is given); without
+            // one the environment is evaluated every plant step, but at least every millisecond.
+            var periods = trackers.Select(t => t.SamplePeriodS);
+            if (simulationMap.Has("environment_step_ms")) periods = periods.Append(simulation.EnvironmentStepS);
+            double step = SimulationSettings.DefaultPlantStepS(converter.Kind, periods);
+            double env = simulationMap.Has("environment_step_ms") ? simulation.EnvironmentStepS : Math.Max(1e-3, step);
+            simulation = simulation with { PlantStepS = step, EnvironmentStepS = env };
         }
         var scoring = ReadScoring(root.Map("scoring", ["settling_band_fraction", "settling_hold_s", "static_allowance_s", "windows", "curve_snapshots_s"]), windows, simulation);
         return new Scenario(name, description, array, converter, sensors, environment, simulation, trackers, scoring);

@@ -206,3 +206,34 @@ public class ExponentialStepTests
         Assert.True(Math.Abs(energy - referenceJ) / referenceJ < 3e-4, $"energy {energy:F4} J against {referenceJ:F4} J");
     }
 }
+
+public class IdealSourceStepTests
+{
+    [Theory]
+    [InlineData(false)]
+    [InlineData(true)]
+    public void TenMillisecondStepsGiveTheEnergyOfFineSteps(bool partialShade)
+    {
+        // The lag's trajectory is exact at any step; what a long step must get right is the energy integral
+        // along it, including steps that cross a bypass knee and that reach beyond open circuit (clamped).
+        // Reference: the same trajectory cut into 1 us steps (Gauss-Legendre error vanishes as h^6).
+        var array = ReferenceModules.Array(10, 1);
+        var conditions = array.UniformConditions(900, 40);
+        if (partialShade) for (int k = 0; k < 9; k++) conditions.IrradianceWm2[k] = 350;
+        var curve = new PreparedArrayCurve(array.Solve(conditions));
+        double voc = curve.OpenCircuitVoltageV;
+        double[] commands = [300, 303, 306, 303, 240, 243, 330, voc + 20, 300, 150];
+        var coarse = new IdealSourceFrontEnd(new ConverterSettings(FrontEndKind.IdealSource));
+        var fine = new IdealSourceFrontEnd(new ConverterSettings(FrontEndKind.IdealSource));
+        coarse.Reset(voc);
+        fine.Reset(voc);
+        foreach (double command in commands)
+        {
+            coarse.Step(10e-3, curve, command, TrackerCommandKind.VoltageReference);
+            for (int n = 0; n < 10_000; n++) fine.Step(1e-6, curve, command, TrackerCommandKind.VoltageReference);
+            Assert.Equal(fine.PvVoltageV, coarse.PvVoltageV, 6);
+        }
+        double e1 = coarse.Energy.FromArrayJ, e2 = fine.Energy.FromArrayJ;
+        Assert.True(Math.Abs(e1 - e2) / e2 < 1e-5, $"10 ms steps {e1:F6} J, 1 us steps {e2:F6} J");
+    }
+}

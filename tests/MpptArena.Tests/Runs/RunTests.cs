@@ -56,6 +56,26 @@ public class RunTests
         }
     }
 
+    [Fact]
+    public void IdealSourceDefaultStepOfATrackerPeriodConverges()
+    {
+        // Default for the ideal source: the step is the tracker period (10 ms here) and the environment is
+        // evaluated as often; against 1 ms steps with the same environment step, and 100 us.
+        string Ideal(string simulation) => NoisyBoost("5", null)
+            .Replace("type: boost\n  bus_voltage_v: 700", "type: ideal_source\n  lag_time_constant_ms: 2")
+            .Replace("duration_s: 2.5\n  seed: 5", simulation);
+        var coarse = TestScenarios.Run(Ideal("duration_s: 2.5\n  seed: 5"));
+        Assert.Equal(10e-3, coarse.PlantStepS, 12);
+        var fine = TestScenarios.Run(Ideal("duration_s: 2.5\n  seed: 5\n  plant_step_us: 1000\n  environment_step_ms: 10"));
+        var finer = TestScenarios.Run(Ideal("duration_s: 2.5\n  seed: 5\n  plant_step_us: 100\n  environment_step_ms: 10"));
+        for (int k = 0; k < coarse.Trackers.Count; k++)
+        {
+            double e1 = coarse.Trackers[k].Scores!.EnergyWh, e2 = fine.Trackers[k].Scores!.EnergyWh, e3 = finer.Trackers[k].Scores!.EnergyWh;
+            Assert.True(Math.Abs(e1 - e2) / e2 < 1e-3, $"{coarse.Trackers[k].Name}: {e1:F6} Wh at 10 ms, {e2:F6} Wh at 1 ms");
+            Assert.True(Math.Abs(e1 - e3) / e3 < 1e-3, $"{coarse.Trackers[k].Name}: {e1:F6} Wh at 10 ms, {e3:F6} Wh at 100 us");
+        }
+    }
+
     [Theory]
     [InlineData("boost", new[] { 10.0, 15.0 }, 1000.0)]
     [InlineData("boost", new[] { 2.5 }, 500.0)] // with the 1 ms environment step: gcd 0.5 ms
