@@ -23,7 +23,6 @@ internal sealed class PreparedStringCurve
     private readonly double[] _slopeAPerV; // dI/dV at the nodes, monotonicity-limited
     private readonly SubstringTable[] _tables;
     private readonly int[] _counts;
-    private readonly int[] _hints;
     private readonly double _blockingSaturationA, _blockingIdealityV;
     private readonly PiecewiseCubic _cubic;
 
@@ -50,7 +49,6 @@ internal sealed class PreparedStringCurve
                 : tables.Get(distinct[k], lowCurrentA, highCurrentA, substringVoltageToleranceV);
         }
         _counts = model.Counts.ToArray();
-        _hints = new int[_tables.Length];
 
         var currents = new List<double>(UniformNodes + distinct.Count * ClusterOffsets.Length * 2 + 2);
         for (int j = 0; j <= UniformNodes; j++) currents.Add(lowCurrentA + (highCurrentA - lowCurrentA) * j / UniformNodes);
@@ -121,7 +119,7 @@ internal sealed class PreparedStringCurve
         double v = 0, dv = 0;
         for (int k = 0; k < _tables.Length; k++)
         {
-            v += _counts[k] * _tables[k].VoltageAtCurrent(currentA, out double s, ref _hints[k]);
+            v += _counts[k] * _tables[k].VoltageAtCurrent(currentA, out double s);
             dv += _counts[k] * s;
         }
         if (_blockingSaturationA > 0)

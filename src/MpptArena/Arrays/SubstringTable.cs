@@ -16,9 +16,7 @@ namespace MpptArena.Arrays;
 /// (Fritsch and Carlson, SIAM J. Numer. Anal. 17(2), 1980).</remarks>
 internal sealed class SubstringTable
 {
-    private readonly double[] _currentA;  // ascending
-    private readonly double[] _voltageV;  // descending
-    private readonly double[] _slopeVPerA;
+    private readonly PiecewiseCubic _voltageOfCurrent; // nodes ascending in current
 
     /// <summary>Tabulates <paramref name="model"/> for currents in [<paramref name="lowCurrentA"/>, <paramref name="highCurrentA"/>].</summary>
     public SubstringTable(in SubstringModel model, double lowCurrentA, double highCurrentA, double voltageToleranceV)
@@ -84,21 +82,22 @@ internal sealed class SubstringTable
             top--;
         }
         // Store in ascending current (descending voltage).
-        _currentA = new double[n];
-        _voltageV = new double[n];
-        _slopeVPerA = new double[n];
+        var currentA = new double[n];
+        var voltageV = new double[n];
+        var slopeVPerA = new double[n];
         for (int k = 0; k < n; k++)
         {
             var node = accepted[n - 1 - k];
-            _currentA[k] = node.CurrentA;
-            _voltageV[k] = node.VoltageV;
-            _slopeVPerA[k] = node.SlopeVPerA;
+            currentA[k] = node.CurrentA;
+            voltageV[k] = node.VoltageV;
+            slopeVPerA[k] = node.SlopeVPerA;
         }
-        MonotoneHermite.LimitSlopes(_currentA, _voltageV, _slopeVPerA);
+        MonotoneHermite.LimitSlopes(currentA, voltageV, slopeVPerA);
+        _voltageOfCurrent = new PiecewiseCubic(currentA, voltageV, slopeVPerA);
     }
 
     /// <summary>Nodes in the table.</summary>
-    public int NodeCount => _currentA.Length;
+    public int NodeCount => _voltageOfCurrent.NodeCount;
 
     private readonly record struct Node(double DiodeVoltageV, double VoltageV, double CurrentA, double SlopeVPerA);
 
@@ -124,40 +123,6 @@ internal sealed class SubstringTable
         return MonotoneHermite.Value(t, h, lo.VoltageV, hi.VoltageV, lo.SlopeVPerA, hi.SlopeVPerA);
     }
 
-    /// <summary>Substring voltage [V] at current [A] and dV/dI [V/A]; <paramref name="hint"/> is the interval of the previous call, kept by the caller for monotone sweeps.</summary>
-    public double VoltageAtCurrent(double currentA, out double slopeVPerA, ref int hint)
-    {
-        var c = _currentA;
-        int last = c.Length - 1;
-        if (currentA <= c[0])
-        {
-            slopeVPerA = _slopeVPerA[0];
-            hint = 0;
-            return _voltageV[0] + slopeVPerA * (currentA - c[0]);
-        }
-        if (currentA >= c[last])
-        {
-            slopeVPerA = _slopeVPerA[last];
-            hint = last - 1;
-            return _voltageV[last] + slopeVPerA * (currentA - c[last]);
-        }
-        int j = hint;
-        if (j < 0 || j >= last || currentA < c[j] || currentA > c[j + 1])
-        {
-            // Short walk first (sweeps move a few intervals at a time), then bisection.
-            if (j >= 0 && j < last && currentA > c[j + 1] && j + 2 <= last && currentA <= c[j + 2]) j++;
-            else if (j > 0 && j <= last && currentA < c[j] && currentA >= c[j - 1]) j--;
-            else
-            {
-                j = Array.BinarySearch(c, currentA);
-                if (j < 0) j = ~j - 1;
-                j = Math.Clamp(j, 0, last - 1);
-            }
-        }
-        hint = j;
-        double h = c[j + 1] - c[j];
-        double t = (currentA - c[j]) / h;
-        slopeVPerA = MonotoneHermite.Slope(t, h, _voltageV[j], _voltageV[j + 1], _slopeVPerA[j], _slopeVPerA[j + 1]);
-        return MonotoneHermite.Value(t, h, _voltageV[j], _voltageV[j + 1], _slopeVPerA[j], _slopeVPerA[j + 1]);
-    }
+    /// <summary>Substring voltage [V] at current [A] and dV/dI [V/A]; linear beyond the tabulated range.</summary>
+    public double VoltageAtCurrent(double currentA, out double slopeVPerA) => _voltageOfCurrent.Evaluate(currentA, out slopeVPerA);
 }

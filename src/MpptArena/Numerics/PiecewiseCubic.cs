@@ -3,7 +3,8 @@ namespace MpptArena.Numerics;
 /// <summary>
 /// A C1 piecewise-cubic function stored for fast evaluation: per interval the Hermite data
 /// (y0, y1, h m0, h m1, 1/h), and a uniform bucket index over x so that finding the interval costs a
-/// multiplication and, on average, less than one comparison instead of a binary search. Outside the
+/// multiplication and, on average, less than one comparison instead of a binary search (a bisection
+/// only within a bucket that holds many nodes). Outside the
 /// node range it continues linearly with the end slopes.
 /// </summary>
 /// <remarks>Cubic Hermite form as in Fritsch and Carlson, SIAM J. Numer. Anal. 17(2), 1980.</remarks>
@@ -63,8 +64,21 @@ public sealed class PiecewiseCubic
             slope = _slopeLast;
             return _yLast + _slopeLast * (x - _xLast);
         }
-        int j = _bucketStart[(int)((x - _xFirst) * _bucketScale)];
+        int bucket = Math.Min((int)((x - _xFirst) * _bucketScale), _bucketStart.Length - 2);
+        int j = _bucketStart[bucket];
         var xs = _x;
+        int last = _bucketStart[bucket + 1];
+        if (last - j > 8)
+        {
+            // A crowded bucket (nodes cluster at knees): bisect among its intervals instead of walking.
+            int lo = j, hi = last;
+            while (lo < hi)
+            {
+                int mid = (lo + hi + 1) >> 1;
+                if (xs[mid] < x) lo = mid; else hi = mid - 1;
+            }
+            j = lo;
+        }
         while (x > xs[j + 1]) j++;
         double invH = _invH[j];
         double t = (x - xs[j]) * invH;

@@ -22,12 +22,11 @@ public class SubstringTableTests
         double isc = Math.Max(substring.ShortCircuitCurrentA, 1e-3);
         double low = -5 * isc, high = 1.02 * isc + 1e-3, tolerance = PreparedArrayCurve.SubstringVoltageToleranceV;
         var table = new SubstringTable(substring, low, high, tolerance);
-        int hint = 0;
         double worst = 0;
         for (int k = 0; k <= 2000; k++)
         {
             double i = low + (high - low) * k / 2000;
-            double tabulated = table.VoltageAtCurrent(i, out _, ref hint);
+            double tabulated = table.VoltageAtCurrent(i, out _);
             double exact = substring.VoltageAtCurrent(i, out _);
             worst = Math.Max(worst, Math.Abs(tabulated - exact));
         }
