@@ -13,12 +13,6 @@ public sealed class PreparedArrayCurve : IArrayCurve
     private readonly int[] _counts;
     private readonly PiecewiseCubic _array;
 
-    /// <summary>
-    /// Relative current tolerance of the string tabulation: the cubic may miss the string's voltage sum by
-    /// at most this fraction of the largest substring short-circuit current at any interval's midpoint.
-    /// </summary>
-    public const double RelativeCurrentTolerance = 1e-6;
-
     /// <summary>Voltage tolerance of each substring table [V].</summary>
     public const double SubstringVoltageToleranceV = 5e-5;
 
@@ -37,8 +31,8 @@ public sealed class PreparedArrayCurve : IArrayCurve
         double low = -5.0 * iscMax, high = 1.02 * iscMax + 1e-3;
         _strings = exact.Strings
             .Select(s => strings is null
-                ? new PreparedStringCurve(s, low, high, RelativeCurrentTolerance * iscMax, SubstringVoltageToleranceV, tables)
-                : strings.Get(s, low, high, RelativeCurrentTolerance * iscMax, SubstringVoltageToleranceV, tables))
+                ? new PreparedStringCurve(s, low, high, SubstringVoltageToleranceV, tables)
+                : strings.Get(s, low, high, SubstringVoltageToleranceV, tables))
             .ToArray();
         _counts = exact.StringCounts.ToArray();
         _array = _strings.Length == 1 ? _strings[0].ToCubic(_counts[0]) : Combine(_strings, _counts);

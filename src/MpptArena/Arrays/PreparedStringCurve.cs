@@ -3,21 +3,25 @@ using MpptArena.Numerics;
 namespace MpptArena.Arrays;
 
 /// <summary>
-/// One string's characteristic tabulated at nodes in current and interpolated between them by monotone
-/// piecewise-cubic Hermite interpolation in voltage (Fritsch and Carlson, SIAM J. Numer. Anal. 17(2), 1980).
+/// One string's characteristic I(V) as a monotone piecewise-cubic Hermite interpolant in voltage
+/// (Fritsch and Carlson, SIAM J. Numer. Anal. 17(2), 1980), built from its substrings' tables.
 /// </summary>
 /// <remarks>
-/// Each distinct substring is first tabulated on its own (<see cref="SubstringTable"/>), so a string
-/// voltage at a current is a sum of table look-ups instead of a sum of Newton solves. Current nodes are a
-/// uniform grid plus, around each distinct substring's short-circuit current, a geometric cluster (the
-/// bypass diode turns on over a current excess that spans decades); every interval is then split until
-/// the cubic misses the string voltage sum at its mid-current by less than the current tolerance.
+/// Each distinct substring is first tabulated on its own (<see cref="SubstringTable"/>: V(I) as a cubic
+/// per interval, refined to its voltage tolerance). All substrings carry the string current, so the
+/// string voltage is their sum at one current (Kirchhoff's voltage law); on every interval between
+/// neighbouring nodes of all the tables each table is a single cubic, so the sum is known exactly, with
+/// its slope, at the union of the tables' nodes. Of that union a node is kept unless it lies closer to
+/// the previous kept node than half its own table's spacing there, so every region keeps the density of
+/// the table that needs the most. One sweep in rising current evaluates the sum at the kept nodes (each
+/// table walks forward, no search), and the string's I(V) is the Hermite interpolant through those
+/// points with slopes 1/(dV/dI); no refinement is needed, as every substring's knee is present at the
+/// density its own table needed (tests compare the result with the exact solve over random shading).
+/// A blocking diode adds its closed-form drop, with nodes spread geometrically (eight per decade) over
+/// the decades of current where its logarithm bends.
 /// </remarks>
 internal sealed class PreparedStringCurve
 {
-    private const int UniformNodes = 48;
-    private static readonly double[] ClusterOffsets = [3e-2, 3e-3, 3e-4, 1e-5];
-
     private readonly double[] _voltageV;   // ascending
     private readonly double[] _currentA;   // descending with voltage
     private readonly double[] _slopeAPerV; // dI/dV at the nodes, monotonicity-limited
@@ -30,10 +34,9 @@ internal sealed class PreparedStringCurve
     /// <param name="model">Exact string model.</param>
     /// <param name="lowCurrentA">Lowest current [A] (negative: the string driven beyond open circuit).</param>
     /// <param name="highCurrentA">Highest current [A] (above every substring's short-circuit current).</param>
-    /// <param name="currentToleranceA">Largest current error [A] accepted at any interval's midpoint.</param>
     /// <param name="substringVoltageToleranceV">Voltage tolerance of each substring table [V].</param>
     /// <param name="tables">Cache of substring tables shared across preparations, or null.</param>
-    public PreparedStringCurve(StringModel model, double lowCurrentA, double highCurrentA, double currentToleranceA, double substringVoltageToleranceV, SubstringTableCache? tables = null)
+    public PreparedStringCurve(StringModel model, double lowCurrentA, double highCurrentA, double substringVoltageToleranceV, SubstringTableCache? tables = null)
     {
         if (model.HasBlockingDiode)
         {
@@ -42,51 +45,99 @@ internal sealed class PreparedStringCurve
         }
         var distinct = model.DistinctSubstrings;
         _tables = new SubstringTable[distinct.Count];
+        int total = 2;
         for (int k = 0; k < distinct.Count; k++)
         {
             _tables[k] = tables is null
                 ? new SubstringTable(distinct[k], lowCurrentA, highCurrentA, substringVoltageToleranceV)
                 : tables.Get(distinct[k], lowCurrentA, highCurrentA, substringVoltageToleranceV);
+            total += _tables[k].NodeCount;
         }
         _counts = model.Counts.ToArray();
 
-        var currents = new List<double>(UniformNodes + distinct.Count * ClusterOffsets.Length * 2 + 2);
-        for (int j = 0; j <= UniformNodes; j++) currents.Add(lowCurrentA + (highCurrentA - lowCurrentA) * j / UniformNodes);
-        double scale = Math.Max(model.MaxShortCircuitCurrentA, 1e-6);
-        foreach (var s in distinct)
+        // The union of all table nodes inside the range, and the range ends, each with the spacing its own
+        // table has there. A node closer than half that spacing to the last one kept is dropped: where every
+        // table is smooth their nodes interleave far more densely than any of them needs, while at a knee
+        // the table that bends keeps all of its nodes.
+        // A blocking diode's drop n Vt ln(1 + I/Is) bends over many decades of 1 + I/Is: eight nodes per decade
+        // from 1e-9 (the range's lower end) to 1e10.
+        const int BlockingNodes = 8 * 19;
+        int capacity = total + (model.HasBlockingDiode ? BlockingNodes + 1 : 0);
+        var union = new double[capacity];
+        var spacing = new double[capacity];
+        int u = 0;
+        union[u] = lowCurrentA; spacing[u++] = 0;
+        union[u] = highCurrentA; spacing[u++] = 0;
+        foreach (var table in _tables)
         {
-            double isc = s.ShortCircuitCurrentA;
-            currents.Add(isc);
-            foreach (double d in ClusterOffsets)
+            var nodesA = table.NodeCurrentsA;
+            for (int j = 0; j < nodesA.Length; j++)
             {
-                currents.Add(isc - d * scale);
-                currents.Add(isc + d * scale);
+                double c = nodesA[j];
+                if (c <= lowCurrentA || c >= highCurrentA) continue;
+                double left = j > 0 ? c - nodesA[j - 1] : double.PositiveInfinity;
+                double right = j + 1 < nodesA.Length ? nodesA[j + 1] - c : double.PositiveInfinity;
+                union[u] = c;
+                spacing[u++] = Math.Min(left, right);
             }
         }
-        currents.RemoveAll(i => i <= lowCurrentA || i >= highCurrentA);
-        currents.Add(lowCurrentA);
-        currents.Add(highCurrentA);
-        currents.Sort();
-        currents.Reverse(); // descending current = ascending voltage
-
-        var nodes = new List<Node>(currents.Count * 2);
-        foreach (double i in currents)
+        if (model.HasBlockingDiode)
         {
-            var node = Solve(i);
-            if (nodes.Count > 0 && node.VoltageV <= nodes[^1].VoltageV) continue; // coincident: nothing new
-            nodes.Add(node);
+            for (int d = 0; d <= BlockingNodes; d++)
+            {
+                double c = _blockingSaturationA * (Math.Pow(10.0, d / 8.0 - 9.0) - 1.0);
+                if (c > lowCurrentA && c < highCurrentA) { union[u] = c; spacing[u++] = 0; }
+            }
         }
-        nodes = Refine(nodes, currentToleranceA);
+        Array.Sort(union, spacing, 0, u);
+        int kept = 0;
+        for (int m = 0; m < u; m++)
+        {
+            if (m == u - 1 || kept == 0 || union[m] - union[kept - 1] >= 0.5 * spacing[m])
+            {
+                union[kept++] = union[m];
+            }
+        }
+        u = kept;
 
-        int n = nodes.Count;
+        // One sweep in rising current; stored from the end so that voltage ascends.
+        var voltage = new double[u];
+        var current = new double[u];
+        var slope = new double[u];
+        var intervals = new int[_tables.Length];
+        int n = 0;
+        double previousI = double.NaN;
+        for (int m = 0; m < u; m++)
+        {
+            double i = union[m];
+            if (i == previousI) continue;
+            previousI = i;
+            double v = 0, dv = 0;
+            for (int k = 0; k < _tables.Length; k++)
+            {
+                v += _counts[k] * _tables[k].VoltageAtRisingCurrent(i, ref intervals[k], out double sk);
+                dv += _counts[k] * sk;
+            }
+            if (_blockingSaturationA > 0)
+            {
+                v -= _blockingIdealityV * Math.Log(i / _blockingSaturationA + 1.0);
+                dv -= _blockingIdealityV / (i + _blockingSaturationA);
+            }
+            // Rising current must give falling voltage; a node that does not (coincident within rounding) adds nothing.
+            if (n > 0 && v >= voltage[n - 1]) continue;
+            voltage[n] = v;
+            current[n] = i;
+            slope[n] = 1.0 / dv;
+            n++;
+        }
         _voltageV = new double[n];
         _currentA = new double[n];
         _slopeAPerV = new double[n];
         for (int k = 0; k < n; k++)
         {
-            _voltageV[k] = nodes[k].VoltageV;
-            _currentA[k] = nodes[k].CurrentA;
-            _slopeAPerV[k] = nodes[k].SlopeAPerV;
+            _voltageV[k] = voltage[n - 1 - k];
+            _currentA[k] = current[n - 1 - k];
+            _slopeAPerV[k] = slope[n - 1 - k];
         }
         MonotoneHermite.LimitSlopes(_voltageV, _currentA, _slopeAPerV);
         _cubic = new PiecewiseCubic(_voltageV, _currentA, _slopeAPerV);
@@ -111,8 +162,6 @@ internal sealed class PreparedStringCurve
     /// <summary>Tabulated node voltages [V], ascending.</summary>
     public ReadOnlySpan<double> NodeVoltagesV => _voltageV;
 
-    private readonly record struct Node(double VoltageV, double CurrentA, double SlopeAPerV);
-
     /// <summary>String voltage from the substring tables [V] and dV/dI [V/A].</summary>
     private double StringVoltage(double currentA, out double slopeVPerA)
     {
@@ -129,51 +178,6 @@ internal sealed class PreparedStringCurve
         }
         slopeVPerA = dv;
         return v;
-    }
-
-    private Node Solve(double currentA)
-    {
-        double v = StringVoltage(currentA, out double dVdI);
-        return new Node(v, currentA, 1.0 / dVdI);
-    }
-
-    private List<Node> Refine(List<Node> nodes, double toleranceA)
-    {
-        const int MaxNodes = 50_000;
-        // A cubic that matches at the nodes can cross the true curve exactly at a single test point, so
-        // every interval is tested at a third and two thirds of its current span, and none may be wider
-        // than 1/128 of the tabulated voltage range (found by the property tests: a 5.6 V interval over a
-        // bypass knee once passed a midpoint test while missing the curve by 0.1 A).
-        double maxWidthV = (nodes[^1].VoltageV - nodes[0].VoltageV) / 128.0;
-        var result = new List<Node>(Math.Max(nodes.Count * 3, 256)) { nodes[0] };
-        var work = new Stack<(Node A, Node B, int Depth)>(nodes.Count + 128);
-        for (int k = nodes.Count - 2; k >= 0; k--) work.Push((nodes[k], nodes[k + 1], 0));
-        while (work.Count > 0)
-        {
-            var (a, b, depth) = work.Pop();
-            if (depth < 40 && result.Count + work.Count < MaxNodes)
-            {
-                var m1 = Solve(a.CurrentA + (b.CurrentA - a.CurrentA) / 3.0);
-                var m2 = Solve(a.CurrentA + 2.0 * (b.CurrentA - a.CurrentA) / 3.0);
-                bool inside = m1.VoltageV > a.VoltageV && m1.VoltageV < m2.VoltageV && m2.VoltageV < b.VoltageV;
-                if (inside && (b.VoltageV - a.VoltageV > maxWidthV || Misses(a, b, m1, toleranceA) || Misses(a, b, m2, toleranceA)))
-                {
-                    work.Push((m2, b, depth + 1));
-                    work.Push((m1, m2, depth + 1));
-                    work.Push((a, m1, depth + 1));
-                    continue;
-                }
-            }
-            result.Add(b);
-        }
-        return result;
-    }
-
-    private static bool Misses(Node a, Node b, Node m, double toleranceA)
-    {
-        double h = b.VoltageV - a.VoltageV;
-        double predicted = MonotoneHermite.Value((m.VoltageV - a.VoltageV) / h, h, a.CurrentA, b.CurrentA, a.SlopeAPerV, b.SlopeAPerV);
-        return Math.Abs(predicted - m.CurrentA) > toleranceA;
     }
 
     /// <summary>

@@ -20,16 +20,16 @@ public sealed class StringCurveCache
     /// <summary>String curves reused (hits).</summary>
     public int Reused { get; private set; }
 
-    internal PreparedStringCurve Get(StringModel model, double low, double high, double currentTolerance, double substringTolerance, SubstringTableCache? tables)
+    internal PreparedStringCurve Get(StringModel model, double low, double high, double substringTolerance, SubstringTableCache? tables)
     {
-        var key = new Key(model, low, high, currentTolerance, substringTolerance);
+        var key = new Key(model, low, high, substringTolerance);
         if (_curves.TryGetValue(key, out var curve))
         {
             Reused++;
             return curve;
         }
         if (_curves.Count >= _capacity) _curves.Clear();
-        curve = new PreparedStringCurve(model, low, high, currentTolerance, substringTolerance, tables);
+        curve = new PreparedStringCurve(model, low, high, substringTolerance, tables);
         _curves[key] = curve;
         Built++;
         return curve;
@@ -39,15 +39,15 @@ public sealed class StringCurveCache
     {
         private readonly SubstringModel[] _substrings;
         private readonly int[] _counts;
-        private readonly (double, double, double, double, double, double) _scalars;
+        private readonly (double, double, double, double, double) _scalars;
         private readonly int _hash;
 
-        public Key(StringModel model, double low, double high, double currentTolerance, double substringTolerance)
+        public Key(StringModel model, double low, double high, double substringTolerance)
         {
             _substrings = [.. model.DistinctSubstrings];
             _counts = [.. model.Counts];
             var (saturation, ideality) = model.BlockingDiode;
-            _scalars = (saturation, ideality, low, high, currentTolerance, substringTolerance);
+            _scalars = (saturation, ideality, low, high, substringTolerance);
             var hash = new HashCode();
             foreach (var s in _substrings) hash.Add(s);
             foreach (int c in _counts) hash.Add(c);

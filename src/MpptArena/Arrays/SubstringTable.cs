@@ -99,6 +99,9 @@ internal sealed class SubstringTable
     /// <summary>Nodes in the table.</summary>
     public int NodeCount => _voltageOfCurrent.NodeCount;
 
+    /// <summary>Node currents [A], ascending.</summary>
+    public ReadOnlySpan<double> NodeCurrentsA => _voltageOfCurrent.Nodes;
+
     private readonly record struct Node(double DiodeVoltageV, double VoltageV, double CurrentA, double SlopeVPerA);
 
     /// <summary>The substring's operating point at cell diode voltage <paramref name="vd"/> [V], all explicit.</summary>
@@ -125,4 +128,8 @@ internal sealed class SubstringTable
 
     /// <summary>Substring voltage [V] at current [A] and dV/dI [V/A]; linear beyond the tabulated range.</summary>
     public double VoltageAtCurrent(double currentA, out double slopeVPerA) => _voltageOfCurrent.Evaluate(currentA, out slopeVPerA);
+
+    /// <summary>The same for a sweep in ascending current; <paramref name="interval"/> carries the position (start at 0).</summary>
+    public double VoltageAtRisingCurrent(double currentA, ref int interval, out double slopeVPerA) =>
+        _voltageOfCurrent.EvaluateAscending(currentA, ref interval, out slopeVPerA);
 }

@@ -80,8 +80,36 @@ public sealed class PiecewiseCubic
             j = lo;
         }
         while (x > xs[j + 1]) j++;
+        return Hermite(j, x, out slope);
+    }
+
+    /// <summary>
+    /// f(x) and f'(x) for a sweep in ascending x: <paramref name="interval"/> carries the interval of the
+    /// previous call (start at 0) and only walks forward, so a sorted sweep costs no search.
+    /// </summary>
+    public double EvaluateAscending(double x, ref int interval, out double slope)
+    {
+        if (x <= _xFirst)
+        {
+            slope = _slopeFirst;
+            return _yFirst + _slopeFirst * (x - _xFirst);
+        }
+        if (x >= _xLast)
+        {
+            slope = _slopeLast;
+            return _yLast + _slopeLast * (x - _xLast);
+        }
+        int j = interval;
+        var xs = _x;
+        while (x > xs[j + 1]) j++;
+        interval = j;
+        return Hermite(j, x, out slope);
+    }
+
+    private double Hermite(int j, double x, out double slope)
+    {
         double invH = _invH[j];
-        double t = (x - xs[j]) * invH;
+        double t = (x - _x[j]) * invH;
         double y0 = _y0[j], y1 = _y1[j], a = _m0h[j], b = _m1h[j];
         double t2 = t * t, t3 = t2 * t;
         slope = ((6 * t2 - 6 * t) * (y0 - y1) + (3 * t2 - 4 * t + 1) * a + (3 * t2 - 2 * t) * b) * invH;
