@@ -98,10 +98,23 @@ public sealed class ArrayCurveCache
 
     private void Round(ArrayConditions c, ArrayConditions rounded)
     {
+        // Neighbouring substrings mostly share their conditions: round each distinct value once.
+        double lastG = double.NaN, lastGRounded = 0, lastT = double.NaN, lastTRounded = 0;
         for (int k = 0; k < c.IrradianceWm2.Length; k++)
         {
-            rounded.IrradianceWm2[k] = Math.Max(0.0, Math.Round(c.IrradianceWm2[k] / _irradianceGridWm2) * _irradianceGridWm2);
-            rounded.CellTemperatureC[k] = Math.Round(c.CellTemperatureC[k] / _temperatureGridC) * _temperatureGridC;
+            double g = c.IrradianceWm2[k], t = c.CellTemperatureC[k];
+            if (g != lastG)
+            {
+                lastG = g;
+                lastGRounded = Math.Max(0.0, Math.Round(g / _irradianceGridWm2) * _irradianceGridWm2);
+            }
+            if (t != lastT)
+            {
+                lastT = t;
+                lastTRounded = Math.Round(t / _temperatureGridC) * _temperatureGridC;
+            }
+            rounded.IrradianceWm2[k] = lastGRounded;
+            rounded.CellTemperatureC[k] = lastTRounded;
         }
     }
 
