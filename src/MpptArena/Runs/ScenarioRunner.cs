@@ -216,7 +216,7 @@ public sealed class ScenarioRunner
         var env = scenario.Environment;
         if (env.Irradiance.HasBreakpointIn(fromS + 1e-12, toS + 1e-12)) return "irradiance change";
         if (env.Temperature.Profile.HasBreakpointIn(fromS + 1e-12, toS + 1e-12)) return "temperature change";
-        if (!changed) return null;
+        if (!changed || env.Shading.Count == 0) return null;
         for (int k = 0; k < factors.Length; k++)
         {
             if (Math.Abs(factors[k] - previous[k]) > 0.01) return "shading change";
