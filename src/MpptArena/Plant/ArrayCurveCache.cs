@@ -81,7 +81,10 @@ public sealed class ArrayCurveCache
         else
         {
             var curve = new PreparedArrayCurve(_array.Solve(_prepared), _tables, _strings);
-            entry = (curve, MppSearch.FindPeaks(curve, Math.Max(400, 25 * _array.Layout.SubstringsPerString)));
+            // Every substring alike: no bypass diode conducts between 0 and Voc, the single-diode power curve
+            // has one maximum, and a coarse scan brackets it as well as a dense one (common practice).
+            int samples = IsUniform(_prepared) ? 64 : Math.Max(400, 25 * _array.Layout.SubstringsPerString);
+            entry = (curve, MppSearch.FindPeaks(curve, samples));
             if (_storedNodes + curve.NodeCount > MaxStoredNodes)
             {
                 _store.Clear();
@@ -116,6 +119,16 @@ public sealed class ArrayCurveCache
             rounded.IrradianceWm2[k] = lastGRounded;
             rounded.CellTemperatureC[k] = lastTRounded;
         }
+    }
+
+    private static bool IsUniform(ArrayConditions c)
+    {
+        double g = c.IrradianceWm2[0], t = c.CellTemperatureC[0];
+        for (int k = 1; k < c.IrradianceWm2.Length; k++)
+        {
+            if (c.IrradianceWm2[k] != g || c.CellTemperatureC[k] != t) return false;
+        }
+        return true;
     }
 
     private static bool Same(ArrayConditions a, ArrayConditions b) =>

@@ -87,4 +87,21 @@ public class CurveCacheTests
             Assert.Equal(fresh.CurrentAtVoltage(v), cache.Curve.CurrentAtVoltage(v), 12);
         }
     }
+
+    [Theory]
+    [InlineData(50.0, -20.0)]
+    [InlineData(400.0, 30.0)]
+    [InlineData(1200.0, 70.0)]
+    public void UniformSkyFindsTheSameMppWithItsCoarseScan(double irradianceWm2, double temperatureC)
+    {
+        // Uniform conditions: one maximum (single-diode power curve, no bypass diode conducting; common
+        // practice), so the cache scans coarsely; it must land on the maximum a dense scan finds.
+        var array = ReferenceModules.Array(10, 2);
+        var cache = new ArrayCurveCache(array, 1.0, 0.2);
+        cache.Update(array.UniformConditions(irradianceWm2, temperatureC));
+        var dense = MppSearch.FindPeaks(cache.Curve, 4000);
+        Assert.Single(cache.Peaks.Peaks);
+        Assert.Equal(dense.Global.PowerW, cache.Peaks.Global.PowerW, dense.Global.PowerW * 1e-9);
+        Assert.Equal(dense.Global.VoltageV, cache.Peaks.Global.VoltageV, 1e-3);
+    }
 }
