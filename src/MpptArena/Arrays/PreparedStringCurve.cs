@@ -112,17 +112,7 @@ internal sealed class PreparedStringCurve
             double i = union[m];
             if (i == previousI) continue;
             previousI = i;
-            double v = 0, dv = 0;
-            for (int k = 0; k < _tables.Length; k++)
-            {
-                v += _counts[k] * _tables[k].VoltageAtRisingCurrent(i, ref intervals[k], out double sk);
-                dv += _counts[k] * sk;
-            }
-            if (_blockingSaturationA > 0)
-            {
-                v -= _blockingIdealityV * Math.Log(i / _blockingSaturationA + 1.0);
-                dv -= _blockingIdealityV / (i + _blockingSaturationA);
-            }
+            double v = StringVoltage(i, intervals, out double dv);
             // Rising current must give falling voltage; a node that does not (coincident within rounding) adds nothing.
             if (n > 0 && v >= voltage[n - 1]) continue;
             voltage[n] = v;
@@ -141,7 +131,7 @@ internal sealed class PreparedStringCurve
         }
         MonotoneHermite.LimitSlopes(_voltageV, _currentA, _slopeAPerV);
         _cubic = new PiecewiseCubic(_voltageV, _currentA, _slopeAPerV);
-        OpenCircuitVoltageV = StringVoltage(0.0, out _);
+        OpenCircuitVoltageV = StringVoltage(0.0, null, out _);
     }
 
     /// <summary>Lowest tabulated voltage [V].</summary>
@@ -162,13 +152,19 @@ internal sealed class PreparedStringCurve
     /// <summary>Tabulated node voltages [V], ascending.</summary>
     public ReadOnlySpan<double> NodeVoltagesV => _voltageV;
 
-    /// <summary>String voltage from the substring tables [V] and dV/dI [V/A].</summary>
-    private double StringVoltage(double currentA, out double slopeVPerA)
+    /// <summary>
+    /// String voltage from the substring tables [V] and dV/dI [V/A]. With <paramref name="intervals"/> (one
+    /// per table, starting at 0) the calls must come in rising current and the tables walk forward.
+    /// </summary>
+    private double StringVoltage(double currentA, int[]? intervals, out double slopeVPerA)
     {
         double v = 0, dv = 0;
         for (int k = 0; k < _tables.Length; k++)
         {
-            v += _counts[k] * _tables[k].VoltageAtCurrent(currentA, out double s);
+            double s;
+            v += _counts[k] * (intervals is null
+                ? _tables[k].VoltageAtCurrent(currentA, out s)
+                : _tables[k].VoltageAtRisingCurrent(currentA, ref intervals[k], out s));
             dv += _counts[k] * s;
         }
         if (_blockingSaturationA > 0)

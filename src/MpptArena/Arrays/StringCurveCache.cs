@@ -8,32 +8,20 @@ namespace MpptArena.Arrays;
 /// </summary>
 public sealed class StringCurveCache
 {
-    private readonly Dictionary<Key, PreparedStringCurve> _curves = [];
-    private readonly int _capacity;
+    private readonly BoundedMemo<Key, PreparedStringCurve> _curves;
 
     /// <summary>A cache of at most <paramref name="capacity"/> string curves.</summary>
-    public StringCurveCache(int capacity = 256) => _capacity = capacity;
+    public StringCurveCache(int capacity = 256) => _curves = new(capacity);
 
     /// <summary>String curves tabulated so far (misses).</summary>
-    public int Built { get; private set; }
+    public int Built => _curves.Built;
 
     /// <summary>String curves reused (hits).</summary>
-    public int Reused { get; private set; }
+    public int Reused => _curves.Reused;
 
-    internal PreparedStringCurve Get(StringModel model, double low, double high, double substringTolerance, SubstringTableCache? tables)
-    {
-        var key = new Key(model, low, high, substringTolerance);
-        if (_curves.TryGetValue(key, out var curve))
-        {
-            Reused++;
-            return curve;
-        }
-        if (_curves.Count >= _capacity) _curves.Clear();
-        curve = new PreparedStringCurve(model, low, high, substringTolerance, tables);
-        _curves[key] = curve;
-        Built++;
-        return curve;
-    }
+    internal PreparedStringCurve Get(StringModel model, double low, double high, double substringTolerance, SubstringTableCache? tables) =>
+        _curves.Get(new Key(model, low, high, substringTolerance), (model, low, high, substringTolerance, tables),
+            a => new PreparedStringCurve(a.model, a.low, a.high, a.substringTolerance, a.tables));
 
     private sealed class Key : IEquatable<Key>
     {

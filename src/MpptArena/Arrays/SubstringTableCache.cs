@@ -7,30 +7,17 @@ namespace MpptArena.Arrays;
 /// </summary>
 public sealed class SubstringTableCache
 {
-    private readonly Dictionary<(SubstringModel Model, double Low, double High, double Tolerance), SubstringTable> _tables = [];
-    private readonly int _capacity;
+    private readonly BoundedMemo<(SubstringModel Model, double Low, double High, double Tolerance), SubstringTable> _tables;
 
     /// <summary>A cache of at most <paramref name="capacity"/> tables.</summary>
-    public SubstringTableCache(int capacity = 1024) => _capacity = capacity;
+    public SubstringTableCache(int capacity = 1024) => _tables = new(capacity);
 
     /// <summary>Tables built so far (misses).</summary>
-    public int Built { get; private set; }
+    public int Built => _tables.Built;
 
     /// <summary>Tables reused (hits).</summary>
-    public int Reused { get; private set; }
+    public int Reused => _tables.Reused;
 
-    internal SubstringTable Get(in SubstringModel model, double low, double high, double tolerance)
-    {
-        var key = (model, low, high, tolerance);
-        if (_tables.TryGetValue(key, out var table))
-        {
-            Reused++;
-            return table;
-        }
-        if (_tables.Count >= _capacity) _tables.Clear();
-        table = new SubstringTable(model, low, high, tolerance);
-        _tables[key] = table;
-        Built++;
-        return table;
-    }
+    internal SubstringTable Get(in SubstringModel model, double low, double high, double tolerance) =>
+        _tables.Get((model, low, high, tolerance), (model, low, high, tolerance), k => new SubstringTable(k.model, k.low, k.high, k.tolerance));
 }
