@@ -54,16 +54,7 @@ public sealed class PiecewiseCubic
     /// <summary>f(x) and f'(x).</summary>
     public double Evaluate(double x, out double slope)
     {
-        if (x <= _xFirst)
-        {
-            slope = _slopeFirst;
-            return _yFirst + _slopeFirst * (x - _xFirst);
-        }
-        if (x >= _xLast)
-        {
-            slope = _slopeLast;
-            return _yLast + _slopeLast * (x - _xLast);
-        }
+        if (x <= _xFirst || x >= _xLast) return Linear(x, out slope);
         int bucket = Math.Min((int)((x - _xFirst) * _bucketScale), _bucketStart.Length - 2);
         int j = _bucketStart[bucket];
         var xs = _x;
@@ -89,21 +80,24 @@ public sealed class PiecewiseCubic
     /// </summary>
     public double EvaluateAscending(double x, ref int interval, out double slope)
     {
-        if (x <= _xFirst)
-        {
-            slope = _slopeFirst;
-            return _yFirst + _slopeFirst * (x - _xFirst);
-        }
-        if (x >= _xLast)
-        {
-            slope = _slopeLast;
-            return _yLast + _slopeLast * (x - _xLast);
-        }
+        if (x <= _xFirst || x >= _xLast) return Linear(x, out slope);
         int j = interval;
         var xs = _x;
         while (x > xs[j + 1]) j++;
         interval = j;
         return Hermite(j, x, out slope);
+    }
+
+    /// <summary>The linear continuation beyond the first or last node.</summary>
+    private double Linear(double x, out double slope)
+    {
+        if (x <= _xFirst)
+        {
+            slope = _slopeFirst;
+            return _yFirst + _slopeFirst * (x - _xFirst);
+        }
+        slope = _slopeLast;
+        return _yLast + _slopeLast * (x - _xLast);
     }
 
     private double Hermite(int j, double x, out double slope)
