@@ -74,21 +74,33 @@ public sealed class PreparedArrayCurve : IArrayCurve
     /// </summary>
     private static PiecewiseCubic Combine(PreparedStringCurve[] strings, int[] counts)
     {
-        var nodes = new List<double>();
-        foreach (var s in strings) foreach (double v in s.NodeVoltagesV) nodes.Add(v);
-        nodes.Sort();
-        var x = new List<double>(nodes.Count);
-        foreach (double v in nodes) if (x.Count == 0 || v > x[^1] + 1e-12 * Math.Max(1.0, Math.Abs(v))) x.Add(v);
-        var y = new double[x.Count];
-        var m = new double[x.Count];
-        for (int k = 0; k < x.Count; k++)
+        double[] x = strings[0].NodeVoltagesV.ToArray();
+        for (int s = 1; s < strings.Length; s++) x = MergeNodes(x, strings[s].NodeVoltagesV);
+        var y = new double[x.Length];
+        var m = new double[x.Length];
+        for (int s = 0; s < strings.Length; s++)
         {
-            for (int s = 0; s < strings.Length; s++)
+            var cubic = strings[s].ToCubic();
+            int interval = 0;
+            for (int k = 0; k < x.Length; k++)
             {
-                y[k] += counts[s] * strings[s].CurrentAtVoltage(x[k], out double slope);
+                y[k] += counts[s] * cubic.EvaluateAscending(x[k], ref interval, out double slope);
                 m[k] += counts[s] * slope;
             }
         }
-        return new PiecewiseCubic(x.ToArray(), y, m);
+        return new PiecewiseCubic(x, y, m);
+    }
+
+    /// <summary>Two ascending node lists merged, dropping a node within 1e-12 (relative) of the one before.</summary>
+    private static double[] MergeNodes(ReadOnlySpan<double> a, ReadOnlySpan<double> b)
+    {
+        var merged = new double[a.Length + b.Length];
+        int i = 0, j = 0, n = 0;
+        while (i < a.Length || j < b.Length)
+        {
+            double v = j >= b.Length || (i < a.Length && a[i] <= b[j]) ? a[i++] : b[j++];
+            if (n == 0 || v > merged[n - 1] + 1e-12 * Math.Max(1.0, Math.Abs(v))) merged[n++] = v;
+        }
+        return merged.AsSpan(0, n).ToArray();
     }
 }

@@ -13,8 +13,9 @@ namespace MpptArena.Arrays;
 /// neighbouring nodes of all the tables each table is a single cubic, so the sum is known exactly, with
 /// its slope, at the union of the tables' nodes. Of that union a node is kept unless it lies closer to
 /// the previous kept node than half its own table's spacing there, so every region keeps the density of
-/// the table that needs the most. One sweep in rising current evaluates the sum at the kept nodes (each
-/// table walks forward, no search), and the string's I(V) is the Hermite interpolant through those
+/// the table that needs the most. One sweep in rising current carries the sum as a running cubic
+/// (<see cref="AscendingCubicSum"/>: a node costs the same whatever the number of substrings, with a
+/// bound on its rounding), and the string's I(V) is the Hermite interpolant through those
 /// points with slopes 1/(dV/dI); no refinement is needed, as every substring's knee is present at the
 /// density its own table needed (tests compare the result with the exact solve over random shading).
 /// A blocking diode adds its closed-form drop, with nodes spread geometrically (eight per decade) over
@@ -55,71 +56,82 @@ internal sealed class PreparedStringCurve
         }
         _counts = model.Counts.ToArray();
 
-        // The union of all table nodes inside the range, and the range ends, each with the spacing its own
-        // table has there. A node closer than half that spacing to the last one kept is dropped: where every
-        // table is smooth their nodes interleave far more densely than any of them needs, while at a knee
-        // the table that bends keeps all of its nodes.
-        // A blocking diode's drop n Vt ln(1 + I/Is) bends over many decades of 1 + I/Is: eight nodes per decade
-        // from 1e-9 (the range's lower end) to 1e10.
+        // Candidate nodes: the range ends, every table node inside the range with the spacing its own table
+        // has there, and for a blocking diode eight nodes per decade of 1 + I/Is from 1e-9 (the range's lower
+        // end) to 1e10, where its logarithm bends. A table node closer than half its spacing to the last node
+        // kept is dropped: where every table is smooth their nodes interleave far more densely than any of
+        // them needs, while at a knee the table that bends keeps all of its nodes. The tables' nodes are
+        // visited in rising current by one sweep that carries the string voltage as a running cubic
+        // (AscendingCubicSum), so a node costs the same whatever the number of substrings.
         const int BlockingNodes = 8 * 19;
-        int capacity = total + (model.HasBlockingDiode ? BlockingNodes + 1 : 0);
-        var union = new double[capacity];
-        var spacing = new double[capacity];
-        int u = 0;
-        union[u] = lowCurrentA; spacing[u++] = 0;
-        union[u] = highCurrentA; spacing[u++] = 0;
-        foreach (var table in _tables)
+        var cubics = new PiecewiseCubic[_tables.Length];
+        var weights = new double[_tables.Length];
+        for (int k = 0; k < _tables.Length; k++)
         {
-            var nodesA = table.NodeCurrentsA;
-            for (int j = 0; j < nodesA.Length; j++)
-            {
-                double c = nodesA[j];
-                if (c <= lowCurrentA || c >= highCurrentA) continue;
-                double left = j > 0 ? c - nodesA[j - 1] : double.PositiveInfinity;
-                double right = j + 1 < nodesA.Length ? nodesA[j + 1] - c : double.PositiveInfinity;
-                union[u] = c;
-                spacing[u++] = Math.Min(left, right);
-            }
+            cubics[k] = _tables[k].VoltageOfCurrent;
+            weights[k] = _counts[k];
         }
-        if (model.HasBlockingDiode)
-        {
-            for (int d = 0; d <= BlockingNodes; d++)
-            {
-                double c = _blockingSaturationA * (Math.Pow(10.0, d / 8.0 - 9.0) - 1.0);
-                if (c > lowCurrentA && c < highCurrentA) { union[u] = c; spacing[u++] = 0; }
-            }
-        }
-        Array.Sort(union, spacing, 0, u);
-        int kept = 0;
-        for (int m = 0; m < u; m++)
-        {
-            if (m == u - 1 || kept == 0 || union[m] - union[kept - 1] >= 0.5 * spacing[m])
-            {
-                union[kept++] = union[m];
-            }
-        }
-        u = kept;
-
-        // One sweep in rising current; stored from the end so that voltage ascends.
-        var voltage = new double[u];
-        var current = new double[u];
-        var slope = new double[u];
-        var intervals = new int[_tables.Length];
+        var sum = new AscendingCubicSum(cubics, weights, lowCurrentA, 1e-2 * substringVoltageToleranceV, 1e-2 * substringVoltageToleranceV);
+        var voltage = new double[total + BlockingNodes + 2];
+        var current = new double[voltage.Length];
+        var slope = new double[voltage.Length];
         int n = 0;
-        double previousI = double.NaN;
-        for (int m = 0; m < u; m++)
+        int blockingNode = 0;
+        double nextBlockingA = NextBlockingNode(ref blockingNode, lowCurrentA);
+        double lastKeptA = double.NaN;
+        Keep(lowCurrentA);
+        while (true)
         {
-            double i = union[m];
-            if (i == previousI) continue;
-            previousI = i;
-            double v = StringVoltage(i, intervals, out double dv);
-            // Rising current must give falling voltage; a node that does not (coincident within rounding) adds nothing.
-            if (n > 0 && v >= voltage[n - 1]) continue;
+            double tableNodeA = sum.NextBreakpoint;
+            if (nextBlockingA <= tableNodeA && nextBlockingA < highCurrentA)
+            {
+                sum.MoveTo(nextBlockingA);
+                Keep(nextBlockingA);
+                nextBlockingA = NextBlockingNode(ref blockingNode, nextBlockingA);
+                continue;
+            }
+            if (tableNodeA >= highCurrentA) break;
+            int k = sum.CrossNextBreakpoint();
+            var nodesA = _tables[k].NodeCurrentsA;
+            int j = sum.PieceOf(k);
+            double left = j > 0 ? nodesA[j] - nodesA[j - 1] : double.PositiveInfinity;
+            double right = j + 1 < nodesA.Length ? nodesA[j + 1] - nodesA[j] : double.PositiveInfinity;
+            if (tableNodeA - lastKeptA >= 0.5 * Math.Min(left, right)) Keep(tableNodeA);
+        }
+        sum.MoveTo(highCurrentA);
+        Keep(highCurrentA);
+
+        // Rising current must give falling voltage; a node that does not (coincident within rounding) adds nothing.
+        void Keep(double i)
+        {
+            if (i == lastKeptA) return;
+            lastKeptA = i;
+            double v = sum.Value, dv = sum.Slope;
+            if (_blockingSaturationA > 0)
+            {
+                v -= _blockingIdealityV * Math.Log(i / _blockingSaturationA + 1.0);
+                dv -= _blockingIdealityV / (i + _blockingSaturationA);
+            }
+            if (n > 0 && v >= voltage[n - 1]) return;
             voltage[n] = v;
             current[n] = i;
             slope[n] = 1.0 / dv;
             n++;
         }
+
+        double NextBlockingNode(ref int d, double aboveA)
+        {
+            if (!model.HasBlockingDiode) return double.PositiveInfinity;
+            for (; d <= BlockingNodes; d++)
+            {
+                double c = _blockingSaturationA * (Math.Pow(10.0, d / 8.0 - 9.0) - 1.0);
+                if (c > aboveA) return c;
+            }
+            return double.PositiveInfinity;
+        }
+        FreshEvaluations = sum.FreshEvaluations;
+
+        // Stored from the end so that voltage ascends.
         _voltageV = new double[n];
         _currentA = new double[n];
         _slopeAPerV = new double[n];
@@ -131,7 +143,7 @@ internal sealed class PreparedStringCurve
         }
         MonotoneHermite.LimitSlopes(_voltageV, _currentA, _slopeAPerV);
         _cubic = new PiecewiseCubic(_voltageV, _currentA, _slopeAPerV);
-        OpenCircuitVoltageV = StringVoltage(0.0, null, out _);
+        OpenCircuitVoltageV = StringVoltage(0.0);
     }
 
     /// <summary>Lowest tabulated voltage [V].</summary>
@@ -146,33 +158,21 @@ internal sealed class PreparedStringCurve
     /// <summary>Number of nodes.</summary>
     public int NodeCount => _voltageV.Length;
 
+    /// <summary>How often the preparation sweep evaluated every substring table afresh (the rest were running-sum steps).</summary>
+    public int FreshEvaluations { get; }
+
     /// <summary>Nodes of all substring tables.</summary>
     public int SubstringNodeCount => _tables.Sum(t => t.NodeCount);
 
     /// <summary>Tabulated node voltages [V], ascending.</summary>
     public ReadOnlySpan<double> NodeVoltagesV => _voltageV;
 
-    /// <summary>
-    /// String voltage from the substring tables [V] and dV/dI [V/A]. With <paramref name="intervals"/> (one
-    /// per table, starting at 0) the calls must come in rising current and the tables walk forward.
-    /// </summary>
-    private double StringVoltage(double currentA, int[]? intervals, out double slopeVPerA)
+    /// <summary>String voltage from the substring tables [V] at one current [A].</summary>
+    private double StringVoltage(double currentA)
     {
-        double v = 0, dv = 0;
-        for (int k = 0; k < _tables.Length; k++)
-        {
-            double s;
-            v += _counts[k] * (intervals is null
-                ? _tables[k].VoltageAtCurrent(currentA, out s)
-                : _tables[k].VoltageAtRisingCurrent(currentA, ref intervals[k], out s));
-            dv += _counts[k] * s;
-        }
-        if (_blockingSaturationA > 0)
-        {
-            v -= _blockingIdealityV * Math.Log(currentA / _blockingSaturationA + 1.0);
-            dv -= _blockingIdealityV / (currentA + _blockingSaturationA);
-        }
-        slopeVPerA = dv;
+        double v = 0;
+        for (int k = 0; k < _tables.Length; k++) v += _counts[k] * _tables[k].VoltageAtCurrent(currentA, out _);
+        if (_blockingSaturationA > 0) v -= _blockingIdealityV * Math.Log(currentA / _blockingSaturationA + 1.0);
         return v;
     }
 

@@ -99,6 +99,9 @@ internal sealed class SubstringTable
     /// <summary>Nodes in the table.</summary>
     public int NodeCount => _voltageOfCurrent.NodeCount;
 
+    /// <summary>V(I) as a piecewise cubic (voltage [V] of current [A]).</summary>
+    public PiecewiseCubic VoltageOfCurrent => _voltageOfCurrent;
+
     /// <summary>Node currents [A], ascending.</summary>
     public ReadOnlySpan<double> NodeCurrentsA => _voltageOfCurrent.Nodes;
 
@@ -113,7 +116,10 @@ internal sealed class SubstringTable
         double dIcdVd = -p.SaturationCurrentA / p.ModifiedIdealityV * e - p.ShuntConductanceS;
         double v = vd - ic * p.SeriesResistanceOhm;
         double dVdVd = 1.0 - p.SeriesResistanceOhm * dIcdVd;
-        double eb = Math.Exp(Math.Min(-v / model.BypassIdealityVoltageV, 700.0));
+        // Above fifty n Vt the bypass diode's exponential is below 2e-22: it changes neither its current
+        // (Is (e - 1) rounds to -Is) nor, in relative terms, the slope, so it is not computed.
+        double x = -v / model.BypassIdealityVoltageV;
+        double eb = x < -50.0 ? 0.0 : Math.Exp(Math.Min(x, 700.0));
         double ib = model.BypassSaturationCurrentA * (eb - 1.0);
         double dIdV = dIcdVd / dVdVd - model.BypassSaturationCurrentA / model.BypassIdealityVoltageV * eb;
         return new Node(vd, v, ic + ib, 1.0 / dIdV);
@@ -128,8 +134,4 @@ internal sealed class SubstringTable
 
     /// <summary>Substring voltage [V] at current [A] and dV/dI [V/A]; linear beyond the tabulated range.</summary>
     public double VoltageAtCurrent(double currentA, out double slopeVPerA) => _voltageOfCurrent.Evaluate(currentA, out slopeVPerA);
-
-    /// <summary>The same for a sweep in ascending current; <paramref name="interval"/> carries the position (start at 0).</summary>
-    public double VoltageAtRisingCurrent(double currentA, ref int interval, out double slopeVPerA) =>
-        _voltageOfCurrent.EvaluateAscending(currentA, ref interval, out slopeVPerA);
 }

@@ -31,9 +31,10 @@ public sealed class PiecewiseCubic
         _bucketScale = buckets / (_xLast - _xFirst);
         _bucketStart = new int[buckets + 1];
         int j = 0;
+        double bucketWidth = (_xLast - _xFirst) / buckets;
         for (int b = 0; b <= buckets; b++)
         {
-            double edge = _xFirst + b / _bucketScale;
+            double edge = _xFirst + b * bucketWidth;
             while (j < n - 2 && _x[j + 1] <= edge) j++;
             _bucketStart[b] = j;
         }
@@ -112,4 +113,56 @@ public sealed class PiecewiseCubic
 
     /// <summary>f(x).</summary>
     public double Evaluate(double x) => Evaluate(x, out _);
+
+    /// <summary>
+    /// The piece that holds <paramref name="x"/> from the right: -1 before the first node (the linear
+    /// continuation), k for x in [x_k, x_k+1), NodeCount - 1 from the last node on.
+    /// </summary>
+    internal int PieceAt(double x)
+    {
+        if (x < _xFirst) return -1;
+        if (x >= _xLast) return _x.Length - 1;
+        int lo = 0, hi = _x.Length - 2;
+        while (lo < hi)
+        {
+            int mid = (lo + hi + 1) >> 1;
+            if (_x[mid] <= x) lo = mid; else hi = mid - 1;
+        }
+        return lo;
+    }
+
+    /// <summary>The node at which <paramref name="piece"/> (as numbered by <see cref="PieceAt"/>) ends; +infinity for the last.</summary>
+    internal double PieceEnd(int piece) => piece + 1 < _x.Length ? _x[piece + 1] : double.PositiveInfinity;
+
+    /// <summary>
+    /// Taylor coefficients of one piece about <paramref name="x"/>: f(x + d) = c0 + c1 d + c2 d^2 + c3 d^3,
+    /// and bounds <paramref name="scale2"/>, <paramref name="scale3"/> on |c2| and |c3| that also bound
+    /// their rounding in units of the machine epsilon (the divided differences of a short piece amplify
+    /// the rounding of its values and slopes by 1/h^2 and 1/h^3).
+    /// </summary>
+    internal void Taylor(int piece, double x, out double c0, out double c1, out double c2, out double c3, out double scale2, out double scale3)
+    {
+        if (piece < 0 || piece >= _y0.Length)
+        {
+            c1 = piece < 0 ? _slopeFirst : _slopeLast;
+            c0 = piece < 0 ? _yFirst + _slopeFirst * (x - _xFirst) : _yLast + _slopeLast * (x - _xLast);
+            c2 = c3 = scale2 = scale3 = 0;
+            return;
+        }
+        double invH = _invH[piece], y0 = _y0[piece], y1 = _y1[piece], a = _m0h[piece], b = _m1h[piece];
+        double invH2 = invH * invH;
+        // About the left node: y0 + (a/h) d + (3 dy - 2a - b)/h^2 d^2 + (a + b - 2 dy)/h^3 d^3, dy = y1 - y0.
+        double dy = y1 - y0;
+        double p2 = (3 * dy - 2 * a - b) * invH2;
+        double p3 = (a + b - 2 * dy) * invH2 * invH;
+        double p1 = a * invH;
+        double d = x - _x[piece];
+        c3 = p3;
+        c2 = p2 + 3 * p3 * d;
+        c1 = p1 + (2 * p2 + 3 * p3 * d) * d;
+        c0 = y0 + (p1 + (p2 + p3 * d) * d) * d;
+        double size = Math.Abs(y0) + Math.Abs(y1);
+        scale3 = (2 * size + Math.Abs(a) + Math.Abs(b)) * invH2 * invH;
+        scale2 = (3 * size + 2 * Math.Abs(a) + Math.Abs(b)) * invH2 + 3 * scale3 * Math.Abs(d);
+    }
 }
