@@ -171,7 +171,7 @@ internal sealed class PreparedStringCurve
     private double StringVoltage(double currentA)
     {
         double v = 0;
-        for (int k = 0; k < _tables.Length; k++) v += _counts[k] * _tables[k].VoltageAtCurrent(currentA, out _);
+        for (int k = 0; k < _tables.Length; k++) v += _counts[k] * _tables[k].VoltageOfCurrent.EvaluateOnce(currentA);
         if (_blockingSaturationA > 0) v -= _blockingIdealityV * Math.Log(currentA / _blockingSaturationA + 1.0);
         return v;
     }

@@ -20,6 +20,7 @@ internal sealed class AscendingCubicSum
     private readonly double[] _weights;
     private readonly int[] _piece;
     private readonly double[] _nextBreakpoint;
+    private readonly Entry[] _entered; // each term's current piece: where the sweep entered it, and its coefficients there
     private readonly int[] _heap; // terms, a binary min-heap on _nextBreakpoint
     private int _heapCount;
     private readonly double _valueBudget, _slopeBudget;
@@ -42,6 +43,7 @@ internal sealed class AscendingCubicSum
         _piece = new int[terms.Length];
         _nextBreakpoint = new double[terms.Length];
         _heap = new int[terms.Length];
+        _entered = new Entry[terms.Length];
         _x = startX;
         for (int k = 0; k < terms.Length; k++)
         {
@@ -104,13 +106,19 @@ internal sealed class AscendingCubicSum
         int k = _heap[0];
         MoveTo(_nextBreakpoint[k]);
         double w = _weights[k];
-        _terms[k].Taylor(_piece[k], _x, out _, out _, out double oldC2, out double oldC3, out double oldScale2, out double oldScale3);
+        // The piece being left, at its end: the second coefficient moves with the distance from where it
+        // was entered (c2 + 3 c3 d), the third does not.
+        var entered = _entered[k];
+        double d = _x - entered.X;
+        double oldC2 = entered.C2 + 3 * entered.C3 * d;
+        double oldScale2 = entered.Scale2 + 3 * entered.Scale3 * d;
         int piece = ++_piece[k];
         _terms[k].Taylor(piece, _x, out _, out _, out double newC2, out double newC3, out double newScale2, out double newScale3);
+        _entered[k] = new Entry(_x, newC2, newC3, newScale2, newScale3);
         _b2 += w * (newC2 - oldC2);
-        _b3 += w * (newC3 - oldC3);
+        _b3 += w * (newC3 - entered.C3);
         _e2 += 8 * UnitRoundoff * (Math.Abs(w) * (oldScale2 + newScale2) + Math.Abs(_b2));
-        _e3 += 8 * UnitRoundoff * (Math.Abs(w) * (oldScale3 + newScale3) + Math.Abs(_b3));
+        _e3 += 8 * UnitRoundoff * (Math.Abs(w) * (entered.Scale3 + newScale3) + Math.Abs(_b3));
         _nextBreakpoint[k] = _terms[k].PieceEnd(piece);
         if (double.IsPositiveInfinity(_nextBreakpoint[k])) RemoveTop(); else SiftDown(0);
         return k;
@@ -122,6 +130,7 @@ internal sealed class AscendingCubicSum
         for (int k = 0; k < _terms.Length; k++)
         {
             _terms[k].Taylor(_piece[k], _x, out double c0, out double c1, out double c2, out double c3, out double scale2, out double scale3);
+            _entered[k] = new Entry(_x, c2, c3, scale2, scale3);
             double w = _weights[k];
             b0 += w * c0; b1 += w * c1; b2 += w * c2; b3 += w * c3;
             s2 += Math.Abs(w) * scale2; s3 += Math.Abs(w) * scale3;
@@ -134,6 +143,8 @@ internal sealed class AscendingCubicSum
         _e3 = 8 * UnitRoundoff * s3;
         FreshEvaluations++;
     }
+
+    private readonly record struct Entry(double X, double C2, double C3, double Scale2, double Scale3);
 
     private void Push(int term)
     {

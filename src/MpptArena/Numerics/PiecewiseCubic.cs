@@ -2,7 +2,7 @@ namespace MpptArena.Numerics;
 
 /// <summary>
 /// A C1 piecewise-cubic function stored for fast evaluation: per interval the Hermite data
-/// (y0, y1, h m0, h m1, 1/h), and a uniform bucket index over x so that finding the interval costs a
+/// (y0, y1, h m0, h m1, 1/h), and a uniform bucket index over x (built on first use) so that finding the interval costs a
 /// multiplication and, on average, less than one comparison instead of a binary search (a bisection
 /// only within a bucket that holds many nodes). Outside the
 /// node range it continues linearly with the end slopes.
@@ -11,7 +11,7 @@ namespace MpptArena.Numerics;
 public sealed class PiecewiseCubic
 {
     private readonly double[] _x, _y0, _y1, _m0h, _m1h, _invH;
-    private readonly int[] _bucketStart;
+    private int[]? _bucketStart;
     private readonly double _bucketScale, _xFirst, _xLast, _yFirst, _yLast, _slopeFirst, _slopeLast;
 
     /// <summary>Builds the function from nodes with values and slopes; x strictly increasing.</summary>
@@ -27,17 +27,28 @@ public sealed class PiecewiseCubic
             _y0[k] = y[k]; _y1[k] = y[k + 1]; _m0h[k] = slope[k] * h; _m1h[k] = slope[k + 1] * h; _invH[k] = 1.0 / h;
         }
         _xFirst = x[0]; _xLast = x[n - 1]; _yFirst = y[0]; _yLast = y[n - 1]; _slopeFirst = slope[0]; _slopeLast = slope[n - 1];
+        _bucketScale = 2 * n / (_xLast - _xFirst);
+    }
+
+    /// <summary>
+    /// The bucket index, built on the first random-access evaluation (a curve that is only swept never
+    /// needs it). Two threads may both build it; they build the same array, and either is kept whole.
+    /// </summary>
+    private int[] BuildBuckets()
+    {
+        int n = _x.Length;
         int buckets = 2 * n;
-        _bucketScale = buckets / (_xLast - _xFirst);
-        _bucketStart = new int[buckets + 1];
+        var bucketStart = new int[buckets + 1];
         int j = 0;
         double bucketWidth = (_xLast - _xFirst) / buckets;
         for (int b = 0; b <= buckets; b++)
         {
             double edge = _xFirst + b * bucketWidth;
             while (j < n - 2 && _x[j + 1] <= edge) j++;
-            _bucketStart[b] = j;
+            bucketStart[b] = j;
         }
+        _bucketStart = bucketStart;
+        return bucketStart;
     }
 
     /// <summary>Number of nodes.</summary>
@@ -56,10 +67,11 @@ public sealed class PiecewiseCubic
     public double Evaluate(double x, out double slope)
     {
         if (x <= _xFirst || x >= _xLast) return Linear(x, out slope);
-        int bucket = Math.Min((int)((x - _xFirst) * _bucketScale), _bucketStart.Length - 2);
-        int j = _bucketStart[bucket];
+        var bucketStart = _bucketStart ?? BuildBuckets();
+        int bucket = Math.Min((int)((x - _xFirst) * _bucketScale), bucketStart.Length - 2);
+        int j = bucketStart[bucket];
         var xs = _x;
-        int last = _bucketStart[bucket + 1];
+        int last = bucketStart[bucket + 1];
         if (last - j > 8)
         {
             // A crowded bucket (nodes cluster at knees): bisect among its intervals instead of walking.
@@ -113,6 +125,13 @@ public sealed class PiecewiseCubic
 
     /// <summary>f(x).</summary>
     public double Evaluate(double x) => Evaluate(x, out _);
+
+    /// <summary>f(x) by a binary search for its interval, without building the bucket index (for a one-off evaluation).</summary>
+    internal double EvaluateOnce(double x)
+    {
+        if (x <= _xFirst || x >= _xLast) return Linear(x, out _);
+        return Hermite(PieceAt(x), x, out _);
+    }
 
     /// <summary>
     /// The piece that holds <paramref name="x"/> from the right: -1 before the first node (the linear
