@@ -72,9 +72,11 @@ internal sealed class PreparedStringCurve
             weights[k] = _counts[k];
         }
         var sum = new AscendingCubicSum(cubics, weights, lowCurrentA, 1e-2 * substringVoltageToleranceV, 1e-2 * substringVoltageToleranceV);
-        var voltage = new double[total + BlockingNodes + 2];
-        var current = new double[voltage.Length];
-        var slope = new double[voltage.Length];
+        var pool = System.Buffers.ArrayPool<double>.Shared;
+        int capacity = total + BlockingNodes + 2;
+        var voltage = pool.Rent(capacity);
+        var current = pool.Rent(capacity);
+        var slope = pool.Rent(capacity);
         int n = 0;
         int blockingNode = 0;
         double nextBlockingA = NextBlockingNode(ref blockingNode, lowCurrentA);
@@ -141,6 +143,9 @@ internal sealed class PreparedStringCurve
             _currentA[k] = current[n - 1 - k];
             _slopeAPerV[k] = slope[n - 1 - k];
         }
+        pool.Return(voltage);
+        pool.Return(current);
+        pool.Return(slope);
         MonotoneHermite.LimitSlopes(_voltageV, _currentA, _slopeAPerV);
         _cubic = new PiecewiseCubic(_voltageV, _currentA, _slopeAPerV);
         OpenCircuitVoltageV = StringVoltage(0.0);

@@ -19,9 +19,8 @@ internal sealed class AscendingCubicSum
     private readonly PiecewiseCubic[] _terms;
     private readonly double[] _weights;
     private readonly int[] _piece;
-    private readonly double[] _nextBreakpoint;
     private readonly Entry[] _entered; // each term's current piece: where the sweep entered it, and its coefficients there
-    private readonly int[] _heap; // terms, a binary min-heap on _nextBreakpoint
+    private readonly Breakpoint[] _heap; // each term's next breakpoint, a binary min-heap on the abscissa
     private int _heapCount;
     private readonly double _valueBudget, _slopeBudget;
     private double _x;
@@ -41,15 +40,14 @@ internal sealed class AscendingCubicSum
         _valueBudget = valueBudget;
         _slopeBudget = slopeBudget;
         _piece = new int[terms.Length];
-        _nextBreakpoint = new double[terms.Length];
-        _heap = new int[terms.Length];
+        _heap = new Breakpoint[terms.Length];
         _entered = new Entry[terms.Length];
         _x = startX;
         for (int k = 0; k < terms.Length; k++)
         {
             _piece[k] = terms[k].PieceAt(startX);
-            _nextBreakpoint[k] = terms[k].PieceEnd(_piece[k]);
-            if (!double.IsPositiveInfinity(_nextBreakpoint[k])) Push(k);
+            double next = terms[k].PieceEnd(_piece[k]);
+            if (!double.IsPositiveInfinity(next)) Push(new Breakpoint(next, k));
         }
         EvaluateAfresh();
     }
@@ -67,10 +65,10 @@ internal sealed class AscendingCubicSum
     public int FreshEvaluations { get; private set; }
 
     /// <summary>The next breakpoint of any term ahead of the current abscissa; +infinity when none is left.</summary>
-    public double NextBreakpoint => _heapCount > 0 ? _nextBreakpoint[_heap[0]] : double.PositiveInfinity;
+    public double NextBreakpoint => _heapCount > 0 ? _heap[0].X : double.PositiveInfinity;
 
     /// <summary>The term whose breakpoint is <see cref="NextBreakpoint"/>.</summary>
-    public int NextBreakpointTerm => _heap[0];
+    public int NextBreakpointTerm => _heap[0].Term;
 
     /// <summary>The piece of term <paramref name="term"/> that holds the current abscissa (numbered as by <see cref="PiecewiseCubic.PieceAt"/>).</summary>
     public int PieceOf(int term) => _piece[term];
@@ -103,8 +101,8 @@ internal sealed class AscendingCubicSum
     /// <summary>Moves to <see cref="NextBreakpoint"/> and continues on the next piece of its term; returns that term.</summary>
     public int CrossNextBreakpoint()
     {
-        int k = _heap[0];
-        MoveTo(_nextBreakpoint[k]);
+        int k = _heap[0].Term;
+        MoveTo(_heap[0].X);
         double w = _weights[k];
         // The piece being left, at its end: the second coefficient moves with the distance from where it
         // was entered (c2 + 3 c3 d), the third does not.
@@ -113,14 +111,14 @@ internal sealed class AscendingCubicSum
         double oldC2 = entered.C2 + 3 * entered.C3 * d;
         double oldScale2 = entered.Scale2 + 3 * entered.Scale3 * d;
         int piece = ++_piece[k];
-        _terms[k].Taylor(piece, _x, out _, out _, out double newC2, out double newC3, out double newScale2, out double newScale3);
+        _terms[k].TaylorAtStart(piece, out double newC2, out double newC3, out double newScale2, out double newScale3);
         _entered[k] = new Entry(_x, newC2, newC3, newScale2, newScale3);
         _b2 += w * (newC2 - oldC2);
         _b3 += w * (newC3 - entered.C3);
         _e2 += 8 * UnitRoundoff * (Math.Abs(w) * (oldScale2 + newScale2) + Math.Abs(_b2));
         _e3 += 8 * UnitRoundoff * (Math.Abs(w) * (entered.Scale3 + newScale3) + Math.Abs(_b3));
-        _nextBreakpoint[k] = _terms[k].PieceEnd(piece);
-        if (double.IsPositiveInfinity(_nextBreakpoint[k])) RemoveTop(); else SiftDown(0);
+        double next = _terms[k].PieceEnd(piece);
+        if (double.IsPositiveInfinity(next)) ReplaceTop(_heap[--_heapCount]); else ReplaceTop(new Breakpoint(next, k));
         return k;
     }
 
@@ -146,35 +144,35 @@ internal sealed class AscendingCubicSum
 
     private readonly record struct Entry(double X, double C2, double C3, double Scale2, double Scale3);
 
-    private void Push(int term)
+    private readonly record struct Breakpoint(double X, int Term);
+
+    private void Push(Breakpoint entry)
     {
         int i = _heapCount++;
-        _heap[i] = term;
         while (i > 0)
         {
             int parent = (i - 1) >> 1;
-            if (_nextBreakpoint[_heap[parent]] <= _nextBreakpoint[_heap[i]]) break;
-            (_heap[parent], _heap[i]) = (_heap[i], _heap[parent]);
+            if (_heap[parent].X <= entry.X) break;
+            _heap[i] = _heap[parent];
             i = parent;
         }
+        _heap[i] = entry;
     }
 
-    private void RemoveTop()
+    /// <summary>Puts <paramref name="entry"/> in place of the smallest and sifts it down (the hole moves, not the entry).</summary>
+    private void ReplaceTop(Breakpoint entry)
     {
-        _heap[0] = _heap[--_heapCount];
-        SiftDown(0);
-    }
-
-    private void SiftDown(int i)
-    {
+        var heap = _heap;
+        int count = _heapCount, i = 0;
         while (true)
         {
-            int left = 2 * i + 1, smallest = i;
-            if (left < _heapCount && _nextBreakpoint[_heap[left]] < _nextBreakpoint[_heap[smallest]]) smallest = left;
-            if (left + 1 < _heapCount && _nextBreakpoint[_heap[left + 1]] < _nextBreakpoint[_heap[smallest]]) smallest = left + 1;
-            if (smallest == i) return;
-            (_heap[smallest], _heap[i]) = (_heap[i], _heap[smallest]);
-            i = smallest;
+            int child = 2 * i + 1;
+            if (child >= count) break;
+            if (child + 1 < count && heap[child + 1].X < heap[child].X) child++;
+            if (heap[child].X >= entry.X) break;
+            heap[i] = heap[child];
+            i = child;
         }
+        if (count > 0) heap[i] = entry;
     }
 }

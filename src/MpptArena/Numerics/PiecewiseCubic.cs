@@ -153,6 +153,23 @@ public sealed class PiecewiseCubic
     /// <summary>The node at which <paramref name="piece"/> (as numbered by <see cref="PieceAt"/>) ends; +infinity for the last.</summary>
     internal double PieceEnd(int piece) => piece + 1 < _x.Length ? _x[piece + 1] : double.PositiveInfinity;
 
+    /// <summary>The second and third Taylor coefficients of an interior piece about its first node, with their bounds (see <see cref="Taylor"/>).</summary>
+    internal void TaylorAtStart(int piece, out double c2, out double c3, out double scale2, out double scale3)
+    {
+        if (piece < 0 || piece >= _y0.Length)
+        {
+            c2 = c3 = scale2 = scale3 = 0;
+            return;
+        }
+        double invH = _invH[piece], y0 = _y0[piece], y1 = _y1[piece], a = _m0h[piece], b = _m1h[piece];
+        double invH2 = invH * invH, dy = y1 - y0;
+        c2 = (3 * dy - 2 * a - b) * invH2;
+        c3 = (a + b - 2 * dy) * invH2 * invH;
+        double size = Math.Abs(y0) + Math.Abs(y1);
+        scale3 = (2 * size + Math.Abs(a) + Math.Abs(b)) * invH2 * invH;
+        scale2 = (3 * size + 2 * Math.Abs(a) + Math.Abs(b)) * invH2;
+    }
+
     /// <summary>
     /// Taylor coefficients of one piece about <paramref name="x"/>: f(x + d) = c0 + c1 d + c2 d^2 + c3 d^3,
     /// and bounds <paramref name="scale2"/>, <paramref name="scale3"/> on |c2| and |c3| that also bound
