@@ -9,8 +9,7 @@ namespace MpptArena.Arrays;
 /// adds Is [exp(-V/(n Vt)) - 1] at that terminal voltage. V rises strictly with Vd
 /// (dV/dVd = 1 + Rs (I0/a exp(Vd/a) + 1/Rsh) &gt; 0), so the nodes come out ordered. They are refined until
 /// the monotone cubic in current misses the exact curve by less than the voltage tolerance at every
-/// interval's midpoint, or by less than a small current tolerance times |dV/dI| where the
-/// substring is steep (<see cref="CurrentToleranceFraction"/>).
+/// interval's midpoint.
 /// </summary>
 /// <remarks>Single-diode model: De Soto, Klein and Beckman, Solar Energy 80 (2006) 78-88, eq. 1.
 /// Interpolation: piecewise-cubic Hermite with exact slopes limited for monotonicity
@@ -26,7 +25,6 @@ internal sealed class SubstringTable
         // the lowest current (the bypass diode only leaks there), and at the highest the voltage at which
         // the diode alone would carry the excess over the cells' short-circuit current. Each end is
         // mapped to its diode voltage once (one closed-form solve each).
-        double currentToleranceA = CurrentToleranceFraction * Math.Abs(highCurrentA);
         var constants = new Constants(model);
         var cells = model.Cells;
         double rs = cells.SeriesResistanceOhm;
@@ -73,7 +71,7 @@ internal sealed class SubstringTable
             int depth = depths[top - 1];
             var m = Evaluate(constants, 0.5 * (a.DiodeVoltageV + b.DiodeVoltageV));
             bool inside = m.CurrentA < a.CurrentA && m.CurrentA > b.CurrentA;
-            if (inside && depth < MaxDepth && Math.Abs(Hermite(b, a, m.CurrentA) - m.VoltageV) > voltageToleranceV + currentToleranceA * Math.Abs(m.SlopeVPerA))
+            if (inside && depth < MaxDepth && Math.Abs(Hermite(b, a, m.CurrentA) - m.VoltageV) > voltageToleranceV)
             {
                 depths[top - 1] = depth + 1;
                 pending[top] = m;
@@ -105,18 +103,6 @@ internal sealed class SubstringTable
         MonotoneHermite.LimitSlopes(currentA, voltageV, slopeVPerA);
         _voltageOfCurrent = new PiecewiseCubic(currentA, voltageV, slopeVPerA);
     }
-
-    /// <summary>
-    /// Current tolerance of the refinement as a fraction of the range's highest current. An interval is
-    /// accepted when its midpoint misses by less than the voltage tolerance plus this current tolerance
-    /// times |dV/dI| there: where the substring is steep in V(I) (the knee, where its current is pinned
-    /// near short circuit while its voltage swings through zero) a voltage error dV is a current error of
-    /// only dV / |dV/dI|. All substrings carry one current, so in the string an error of dV_k in substring k
-    /// moves the current by dV_k / |sum of dV/dI| &lt;= dV_k / |dV_k/dI|; the relaxed term therefore adds at
-    /// most this fraction of the highest current to the string current (3e-6 of it, a power error of about
-    /// 4e-6 of MPP power at open-circuit voltage), while the tables need about a quarter fewer nodes.
-    /// </summary>
-    internal const double CurrentToleranceFraction = 3e-6;
 
     /// <summary>Nodes in the table.</summary>
     public int NodeCount => _voltageOfCurrent.NodeCount;
