@@ -71,7 +71,7 @@ internal sealed class PreparedStringCurve
             cubics[k] = _tables[k].VoltageOfCurrent;
             weights[k] = _counts[k];
         }
-        var sum = new AscendingCubicSum(cubics, weights, lowCurrentA, 1e-2 * substringVoltageToleranceV, 1e-2 * substringVoltageToleranceV);
+        var sum = new AscendingCubicSum(cubics, weights, lowCurrentA, 0.1 * substringVoltageToleranceV, 0.1 * substringVoltageToleranceV);
         var pool = System.Buffers.ArrayPool<double>.Shared;
         int capacity = total + BlockingNodes + 2;
         var voltage = pool.Rent(capacity);
