@@ -74,17 +74,16 @@ public sealed class PreparedArrayCurve : IArrayCurve
     /// </summary>
     private static PiecewiseCubic Combine(PreparedStringCurve[] strings, int[] counts)
     {
-        double[] x = strings[0].NodeVoltagesV.ToArray();
+        var x = strings[0].NodeVoltagesV;
         for (int s = 1; s < strings.Length; s++) x = MergeNodes(x, strings[s].NodeVoltagesV);
         var y = new double[x.Length];
         var m = new double[x.Length];
         for (int s = 0; s < strings.Length; s++)
         {
-            var cubic = strings[s].ToCubic();
             int interval = 0;
             for (int k = 0; k < x.Length; k++)
             {
-                y[k] += counts[s] * cubic.EvaluateAscending(x[k], ref interval, out double slope);
+                y[k] += counts[s] * strings[s].CurrentAtRisingVoltage(x[k], ref interval, out double slope);
                 m[k] += counts[s] * slope;
             }
         }
@@ -92,7 +91,7 @@ public sealed class PreparedArrayCurve : IArrayCurve
     }
 
     /// <summary>Two ascending node lists merged, dropping a node within 1e-12 (relative) of the one before.</summary>
-    private static double[] MergeNodes(ReadOnlySpan<double> a, ReadOnlySpan<double> b)
+    private static ReadOnlySpan<double> MergeNodes(ReadOnlySpan<double> a, ReadOnlySpan<double> b)
     {
         var merged = new double[a.Length + b.Length];
         int i = 0, j = 0, n = 0;
@@ -101,6 +100,6 @@ public sealed class PreparedArrayCurve : IArrayCurve
             double v = j >= b.Length || (i < a.Length && a[i] <= b[j]) ? a[i++] : b[j++];
             if (n == 0 || v > merged[n - 1] + 1e-12 * Math.Max(1.0, Math.Abs(v))) merged[n++] = v;
         }
-        return merged.AsSpan(0, n).ToArray();
+        return merged.AsSpan(0, n);
     }
 }

@@ -29,7 +29,7 @@ internal sealed class PreparedStringCurve
     private readonly SubstringTable[] _tables;
     private readonly int[] _counts;
     private readonly double _blockingSaturationA, _blockingIdealityV;
-    private readonly PiecewiseCubic _cubic;
+    private PiecewiseCubic? _cubic; // built on first use: a string combined with others is only swept
 
     /// <summary>Tabulates <paramref name="model"/> for string currents in [<paramref name="lowCurrentA"/>, <paramref name="highCurrentA"/>].</summary>
     /// <param name="model">Exact string model.</param>
@@ -147,7 +147,6 @@ internal sealed class PreparedStringCurve
         pool.Return(current);
         pool.Return(slope);
         MonotoneHermite.LimitSlopes(_voltageV, _currentA, _slopeAPerV);
-        _cubic = new PiecewiseCubic(_voltageV, _currentA, _slopeAPerV);
         OpenCircuitVoltageV = StringVoltage(0.0);
     }
 
@@ -187,7 +186,7 @@ internal sealed class PreparedStringCurve
     /// </summary>
     public PiecewiseCubic ToCubic(int count = 1)
     {
-        if (count == 1) return _cubic;
+        if (count == 1) return Cubic;
         var current = new double[_currentA.Length];
         var slope = new double[_slopeAPerV.Length];
         for (int k = 0; k < current.Length; k++)
@@ -199,5 +198,34 @@ internal sealed class PreparedStringCurve
     }
 
     /// <summary>String current [A] at voltage [V] and dI/dV [A/V].</summary>
-    public double CurrentAtVoltage(double voltageV, out double slopeAPerV) => _cubic.Evaluate(voltageV, out slopeAPerV);
+    public double CurrentAtVoltage(double voltageV, out double slopeAPerV) => Cubic.Evaluate(voltageV, out slopeAPerV);
+
+    private PiecewiseCubic Cubic => _cubic ??= new PiecewiseCubic(_voltageV, _currentA, _slopeAPerV);
+
+    /// <summary>
+    /// String current [A] and dI/dV [A/V] for a sweep in ascending voltage [V], straight from the nodes (the
+    /// same Hermite cubics); <paramref name="interval"/> carries the position (start at 0). Linear beyond the ends.
+    /// </summary>
+    internal double CurrentAtRisingVoltage(double voltageV, ref int interval, out double slopeAPerV)
+    {
+        var x = _voltageV;
+        if (voltageV <= x[0] || voltageV >= x[^1])
+        {
+            int end = voltageV <= x[0] ? 0 : x.Length - 1;
+            slopeAPerV = _slopeAPerV[end];
+            return _currentA[end] + slopeAPerV * (voltageV - x[end]);
+        }
+        int j = interval;
+        while (voltageV > x[j + 1]) j++;
+        interval = j;
+        if (voltageV == x[j + 1])
+        {
+            // A node of this string (the other strings' nodes fall in between): its own value and slope.
+            slopeAPerV = _slopeAPerV[j + 1];
+            return _currentA[j + 1];
+        }
+        double h = x[j + 1] - x[j], t = (voltageV - x[j]) / h;
+        slopeAPerV = MonotoneHermite.Slope(t, h, _currentA[j], _currentA[j + 1], _slopeAPerV[j], _slopeAPerV[j + 1]);
+        return MonotoneHermite.Value(t, h, _currentA[j], _currentA[j + 1], _slopeAPerV[j], _slopeAPerV[j + 1]);
+    }
 }

@@ -21,19 +21,25 @@ internal sealed class SubstringTable
     /// <summary>Tabulates <paramref name="model"/> for currents in [<paramref name="lowCurrentA"/>, <paramref name="highCurrentA"/>].</summary>
     public SubstringTable(in SubstringModel model, double lowCurrentA, double highCurrentA, double voltageToleranceV)
     {
-        // The range ends need only bracket the currents, not hit them: the cells' closed-form voltage at
-        // the lowest current (the bypass diode only leaks there), and at the highest the voltage at which
-        // the diode alone would carry the excess over the cells' short-circuit current. Each end is
-        // mapped to its diode voltage once (one closed-form solve each).
+        // The range ends need only bracket the currents, not hit them, and both come in closed form in the
+        // diode voltage. Top: where the diode alone, I0 (exp(Vd/a) - 1), takes IL - lowest current (the shunt
+        // only lowers the current further), and at least where V = n Vt (Vd = n Vt + IL Rs gives
+        // V >= n Vt, since the cells carry at most IL for Vd >= 0). Bottom: the voltage at which the bypass
+        // diode alone would carry the excess over the cells' short-circuit current, and a diode voltage at
+        // which the terminal voltage is surely below it: for Vd <= 0 the cells carry at least IL - Gsh Vd, so
+        // V <= Vd (1 + Gsh Rs) - IL Rs.
         var constants = new Constants(model);
         var cells = model.Cells;
         double rs = cells.SeriesResistanceOhm;
         double nvt = model.BypassIdealityVoltageV;
-        double vHigh = Math.Max(Pv.SingleDiodeModel.VoltageAtCurrent(cells, lowCurrentA), nvt);
+        double il = cells.PhotocurrentA;
+        double vdHigh = Math.Max(
+            cells.ModifiedIdealityV * Math.Log(Math.Max(il - lowCurrentA, 0.0) / cells.SaturationCurrentA + 1.0),
+            nvt + Math.Max(il, 0.0) * rs);
         double excess = Math.Max(highCurrentA - model.ShortCircuitCurrentA, 1e-12);
         double vLow = -nvt * Math.Log(excess / model.BypassSaturationCurrentA + 1.0) - nvt;
-        double vdHigh = vHigh + Pv.SingleDiodeModel.CurrentAtVoltage(cells, vHigh) * rs;
-        double vdLow = vLow + Pv.SingleDiodeModel.CurrentAtVoltage(cells, vLow) * rs;
+        double vdLow = (vLow + il * rs) / (1.0 + cells.ShuntConductanceS * rs);
+        if (vdLow > 0) vdLow = vLow + Pv.SingleDiodeModel.CurrentAtVoltage(cells, vLow) * rs; // only for an extreme Rs
 
         // Seeds: a uniform spread, plus where the bypass diode turns on, a few tenths of a volt below
         // zero terminal voltage (Vd is about V + Isc Rs there; seeds only guide the refinement).
