@@ -14,6 +14,7 @@ namespace MpptArena.Arrays;
 /// <remarks>Single-diode model: De Soto, Klein and Beckman, Solar Energy 80 (2006) 78-88, eq. 1.
 /// Interpolation: piecewise-cubic Hermite with exact slopes limited for monotonicity
 /// (Fritsch and Carlson, SIAM J. Numer. Anal. 17(2), 1980).</remarks>
+[System.Runtime.CompilerServices.SkipLocalsInit]
 internal sealed class SubstringTable
 {
     private readonly PiecewiseCubic _voltageOfCurrent; // nodes ascending in current
@@ -94,10 +95,10 @@ internal sealed class SubstringTable
             accepted[n++] = a = b;
             top--;
         }
-        // Store in ascending current (descending voltage).
-        var currentA = new double[n];
-        var voltageV = new double[n];
-        var slopeVPerA = new double[n];
+        // Store in ascending current (descending voltage); the cubic keeps its own copy.
+        Span<double> currentA = n <= 256 ? stackalloc double[n] : new double[n];
+        Span<double> voltageV = n <= 256 ? stackalloc double[n] : new double[n];
+        Span<double> slopeVPerA = n <= 256 ? stackalloc double[n] : new double[n];
         for (int k = 0; k < n; k++)
         {
             var node = accepted[n - 1 - k];
@@ -151,11 +152,13 @@ internal sealed class SubstringTable
         return new Node(vd, v, ic + ib, dVdVd / (dIcdVd - bypassConductanceS * dVdVd));
     }
 
-    private static double Hermite(Node lo, Node hi, double i)
+    /// <summary>The cubic Hermite through two nodes at current <paramref name="i"/>, in power form in t (the same cubic as <see cref="MonotoneHermite.Value"/>).</summary>
+    private static double Hermite(in Node lo, in Node hi, double i)
     {
         double h = hi.CurrentA - lo.CurrentA;
         double t = (i - lo.CurrentA) / h;
-        return MonotoneHermite.Value(t, h, lo.VoltageV, hi.VoltageV, lo.SlopeVPerA, hi.SlopeVPerA);
+        double a = h * lo.SlopeVPerA, b = h * hi.SlopeVPerA, dy = hi.VoltageV - lo.VoltageV;
+        return lo.VoltageV + t * (a + t * (3 * dy - 2 * a - b + t * (a + b - 2 * dy)));
     }
 
     /// <summary>Substring voltage [V] at current [A] and dV/dI [V/A]; linear beyond the tabulated range.</summary>

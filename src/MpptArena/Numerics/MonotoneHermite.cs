@@ -26,7 +26,10 @@ public static class MonotoneHermite
     /// <param name="x">Abscissae, strictly increasing.</param>
     /// <param name="y">Ordinates, monotone.</param>
     /// <param name="m">Slopes dy/dx at the nodes; changed in place.</param>
-    public static void LimitSlopes(double[] x, double[] y, double[] m)
+    public static void LimitSlopes(double[] x, double[] y, double[] m) => LimitSlopes(x.AsSpan(), y, m);
+
+    /// <summary>The same on spans of equal length.</summary>
+    public static void LimitSlopes(ReadOnlySpan<double> x, ReadOnlySpan<double> y, Span<double> m)
     {
         for (int k = 0; k + 1 < x.Length; k++)
         {
