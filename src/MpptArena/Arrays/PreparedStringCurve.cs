@@ -94,11 +94,7 @@ internal sealed class PreparedStringCurve
             }
             if (tableNodeA >= highCurrentA) break;
             int k = sum.CrossNextBreakpoint();
-            var nodesA = _tables[k].NodeCurrentsA;
-            int j = sum.PieceOf(k);
-            double left = j > 0 ? nodesA[j] - nodesA[j - 1] : double.PositiveInfinity;
-            double right = j + 1 < nodesA.Length ? nodesA[j + 1] - nodesA[j] : double.PositiveInfinity;
-            if (tableNodeA - lastKeptA >= 0.5 * Math.Min(left, right)) Keep(tableNodeA);
+            if (tableNodeA - lastKeptA >= _tables[k].HalfSpacingA[sum.PieceOf(k)]) Keep(tableNodeA);
         }
         sum.MoveTo(highCurrentA);
         Keep(highCurrentA);

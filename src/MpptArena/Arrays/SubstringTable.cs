@@ -109,7 +109,17 @@ internal sealed class SubstringTable
         System.Buffers.ArrayPool<Node>.Shared.Return(accepted);
         MonotoneHermite.LimitSlopes(currentA, voltageV, slopeVPerA);
         _voltageOfCurrent = new PiecewiseCubic(currentA, voltageV, slopeVPerA);
+        HalfSpacingA = new double[n];
+        for (int k = 0; k < n; k++)
+        {
+            double left = k > 0 ? currentA[k] - currentA[k - 1] : double.PositiveInfinity;
+            double right = k + 1 < n ? currentA[k + 1] - currentA[k] : double.PositiveInfinity;
+            HalfSpacingA[k] = 0.5 * Math.Min(left, right);
+        }
     }
+
+    /// <summary>Half the distance [A] from each node to its nearer neighbour (how close another node may come before one of them is redundant in a sum).</summary>
+    public double[] HalfSpacingA { get; }
 
     /// <summary>Nodes in the table.</summary>
     public int NodeCount => _voltageOfCurrent.NodeCount;

@@ -76,8 +76,14 @@ internal sealed class AscendingCubicSum
     /// <summary>Moves to <paramref name="x"/>, which may not lie beyond <see cref="NextBreakpoint"/>.</summary>
     public void MoveTo(double x)
     {
+        if (!(x >= _x) || x > NextBreakpoint) throw new ArgumentOutOfRangeException(nameof(x), "the sweep only moves forward and cannot pass a breakpoint");
+        Advance(x);
+    }
+
+    /// <summary><see cref="MoveTo"/> for a point already known to lie between the current one and the next breakpoint.</summary>
+    private void Advance(double x)
+    {
         double d = x - _x;
-        if (!(d >= 0) || x > NextBreakpoint) throw new ArgumentOutOfRangeException(nameof(x), "the sweep only moves forward and cannot pass a breakpoint");
         if (d == 0) return;
         double d2 = d * d, d3 = d2 * d;
         double e0 = _e0 + _e1 * d + _e2 * d2 + _e3 * d3
@@ -102,7 +108,7 @@ internal sealed class AscendingCubicSum
     public int CrossNextBreakpoint()
     {
         int k = _heap[0].Term;
-        MoveTo(_heap[0].X);
+        Advance(_heap[0].X);
         double w = _weights[k];
         // The piece being left, at its end: the second coefficient moves with the distance from where it
         // was entered (c2 + 3 c3 d), the third does not.
