@@ -18,8 +18,8 @@ namespace MpptArena.Arrays;
 /// bound on its rounding), and the string's I(V) is the Hermite interpolant through those
 /// points with slopes 1/(dV/dI); no refinement is needed, as every substring's knee is present at the
 /// density its own table needed (tests compare the result with the exact solve over random shading).
-/// A blocking diode adds its closed-form drop, with nodes spread geometrically (eight per decade) over
-/// the decades of current where its logarithm bends.
+/// A blocking diode adds its closed-form drop, with nodes spread geometrically (eight per decade of
+/// 1 + I/Is) from the range's lowest current to its highest, wherever its logarithm bends.
 /// </remarks>
 internal sealed class PreparedStringCurve
 {
@@ -58,12 +58,17 @@ internal sealed class PreparedStringCurve
 
         // Candidate nodes: the range ends, every table node inside the range with the spacing its own table
         // has there, and for a blocking diode eight nodes per decade of 1 + I/Is from 1e-9 (the range's lower
-        // end) to 1e10, where its logarithm bends. A table node closer than half its spacing to the last node
+        // end) to the range's highest current, where its logarithm bends. A table node closer than half its spacing to the last node
         // kept is dropped: where every table is smooth their nodes interleave far more densely than any of
         // them needs, while at a knee the table that bends keeps all of its nodes. The tables' nodes are
         // visited in rising current by one sweep that carries the string voltage as a running cubic
         // (AscendingCubicSum), so a node costs the same whatever the number of substrings.
-        const int BlockingNodes = 8 * 19;
+        // The blocking diode's nodes run from 1 + I/Is = 1e-9 up to the highest current of the range, which for
+        // a diode with a small saturation current is many decades more than ten: above the last of them its
+        // logarithm would otherwise rest on the tables' nodes, spaced for the substrings alone.
+        int blockingNodes = model.HasBlockingDiode
+            ? 8 * (int)Math.Ceiling(9.0 + Math.Log10(highCurrentA / _blockingSaturationA + 1.0))
+            : 0;
         var cubics = new PiecewiseCubic[_tables.Length];
         var weights = new double[_tables.Length];
         for (int k = 0; k < _tables.Length; k++)
@@ -73,7 +78,7 @@ internal sealed class PreparedStringCurve
         }
         var sum = new AscendingCubicSum(cubics, weights, lowCurrentA, 0.1 * substringVoltageToleranceV, 0.1 * substringVoltageToleranceV);
         var pool = System.Buffers.ArrayPool<double>.Shared;
-        int capacity = total + BlockingNodes + 2;
+        int capacity = total + blockingNodes + 2;
         var voltage = pool.Rent(capacity);
         var current = pool.Rent(capacity);
         var slope = pool.Rent(capacity);
@@ -120,7 +125,7 @@ internal sealed class PreparedStringCurve
         double NextBlockingNode(ref int d, double aboveA)
         {
             if (!model.HasBlockingDiode) return double.PositiveInfinity;
-            for (; d <= BlockingNodes; d++)
+            for (; d <= blockingNodes; d++)
             {
                 double c = _blockingSaturationA * (Math.Pow(10.0, d / 8.0 - 9.0) - 1.0);
                 if (c > aboveA) return c;
