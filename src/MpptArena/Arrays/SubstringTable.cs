@@ -76,7 +76,7 @@ internal sealed class SubstringTable
         {
             var b = pending[top - 1];
             int depth = depths[top - 1];
-            var m = Evaluate(constants, 0.5 * (a.DiodeVoltageV + b.DiodeVoltageV));
+            var m = Midpoint(constants, a, b);
             bool inside = m.CurrentA < a.CurrentA && m.CurrentA > b.CurrentA;
             if (inside && depth < MaxDepth && Math.Abs(Hermite(b, a, m.CurrentA) - m.VoltageV) > voltageToleranceV)
             {
@@ -130,7 +130,7 @@ internal sealed class SubstringTable
     /// <summary>Node currents [A], ascending.</summary>
     public ReadOnlySpan<double> NodeCurrentsA => _voltageOfCurrent.Nodes;
 
-    private readonly record struct Node(double DiodeVoltageV, double VoltageV, double CurrentA, double SlopeVPerA);
+    private readonly record struct Node(double DiodeVoltageV, double VoltageV, double CurrentA, double SlopeVPerA, double CellExponential);
 
     /// <summary>The model's constants in the form the node evaluation uses (reciprocals taken once).</summary>
     private readonly struct Constants(in SubstringModel model)
@@ -145,9 +145,23 @@ internal sealed class SubstringTable
     }
 
     /// <summary>The substring's operating point at cell diode voltage <paramref name="vd"/> [V], all explicit.</summary>
-    private static Node Evaluate(in Constants p, double vd)
+    private static Node Evaluate(in Constants p, double vd) => Evaluate(p, vd, Math.Exp(Math.Min(vd * p.InverseIdealityPerV, 700.0)));
+
+    /// <summary>
+    /// The operating point halfway in diode voltage between two nodes: exp(Vd/a) there is the geometric mean of
+    /// its values at the ends, exp((x + y)/2) = sqrt(exp(x) exp(y)), a square root instead of an exponential
+    /// (both correctly rounded operations, so the result does not depend on the platform's exp).
+    /// </summary>
+    private static Node Midpoint(in Constants p, in Node a, in Node b)
     {
-        double e = Math.Exp(Math.Min(vd * p.InverseIdealityPerV, 700.0));
+        double vd = 0.5 * (a.DiodeVoltageV + b.DiodeVoltageV);
+        double product = a.CellExponential * b.CellExponential;
+        return product < 1e300 ? Evaluate(p, vd, Math.Sqrt(product)) : Evaluate(p, vd);
+    }
+
+    /// <summary>The operating point at diode voltage <paramref name="vd"/> [V] with e = exp(Vd/a) given.</summary>
+    private static Node Evaluate(in Constants p, double vd, double e)
+    {
         double ic = p.PhotocurrentA - p.SaturationCurrentA * (e - 1.0) - p.ShuntConductanceS * vd;
         double dIcdVd = -p.SaturationCurrentA * p.InverseIdealityPerV * e - p.ShuntConductanceS;
         double v = vd - ic * p.SeriesResistanceOhm;
@@ -159,7 +173,7 @@ internal sealed class SubstringTable
         double ib = p.BypassSaturationCurrentA * (eb - 1.0);
         double bypassConductanceS = p.BypassSaturationCurrentA * p.InverseBypassIdealityPerV * eb;
         // dI/dV = dIc/dVd / (dV/dVd) - g_bypass, so dV/dI = (dV/dVd) / (dIc/dVd - g_bypass dV/dVd).
-        return new Node(vd, v, ic + ib, dVdVd / (dIcdVd - bypassConductanceS * dVdVd));
+        return new Node(vd, v, ic + ib, dVdVd / (dIcdVd - bypassConductanceS * dVdVd), e);
     }
 
     /// <summary>The cubic Hermite through two nodes at current <paramref name="i"/>, in power form in t (the same cubic as <see cref="MonotoneHermite.Value"/>).</summary>
