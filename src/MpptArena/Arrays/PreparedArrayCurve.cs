@@ -74,32 +74,46 @@ public sealed class PreparedArrayCurve : IArrayCurve
     /// </summary>
     private static PiecewiseCubic Combine(PreparedStringCurve[] strings, int[] counts)
     {
-        var x = strings[0].NodeVoltagesV;
-        for (int s = 1; s < strings.Length; s++) x = MergeNodes(x, strings[s].NodeVoltagesV);
-        var y = new double[x.Length];
-        var m = new double[x.Length];
+        // Work arrays from the shared pool: the cubic keeps its own copies.
+        var pool = System.Buffers.ArrayPool<double>.Shared;
+        int capacity = strings.Sum(s => s.NodeCount);
+        double[] merged = pool.Rent(capacity), scratch = pool.Rent(capacity), y = pool.Rent(capacity), m = pool.Rent(capacity);
+        int n = strings[0].NodeVoltagesV.Length;
+        strings[0].NodeVoltagesV.CopyTo(merged);
+        for (int s = 1; s < strings.Length; s++)
+        {
+            n = MergeNodes(merged.AsSpan(0, n), strings[s].NodeVoltagesV, scratch);
+            (merged, scratch) = (scratch, merged);
+        }
+        var x = merged.AsSpan(0, n);
+        y.AsSpan(0, n).Clear();
+        m.AsSpan(0, n).Clear();
         for (int s = 0; s < strings.Length; s++)
         {
             int interval = 0;
-            for (int k = 0; k < x.Length; k++)
+            for (int k = 0; k < n; k++)
             {
                 y[k] += counts[s] * strings[s].CurrentAtRisingVoltage(x[k], ref interval, out double slope);
                 m[k] += counts[s] * slope;
             }
         }
-        return new PiecewiseCubic(x, y, m);
+        var cubic = new PiecewiseCubic(x, y.AsSpan(0, n), m.AsSpan(0, n));
+        pool.Return(merged);
+        pool.Return(scratch);
+        pool.Return(y);
+        pool.Return(m);
+        return cubic;
     }
 
-    /// <summary>Two ascending node lists merged, dropping a node within 1e-12 (relative) of the one before.</summary>
-    private static ReadOnlySpan<double> MergeNodes(ReadOnlySpan<double> a, ReadOnlySpan<double> b)
+    /// <summary>Two ascending node lists merged into <paramref name="into"/>, dropping a node within 1e-12 (relative) of the one before; returns the count.</summary>
+    private static int MergeNodes(ReadOnlySpan<double> a, ReadOnlySpan<double> b, Span<double> into)
     {
-        var merged = new double[a.Length + b.Length];
         int i = 0, j = 0, n = 0;
         while (i < a.Length || j < b.Length)
         {
             double v = j >= b.Length || (i < a.Length && a[i] <= b[j]) ? a[i++] : b[j++];
-            if (n == 0 || v > merged[n - 1] + 1e-12 * Math.Max(1.0, Math.Abs(v))) merged[n++] = v;
+            if (n == 0 || v > into[n - 1] + 1e-12 * Math.Max(1.0, Math.Abs(v))) into[n++] = v;
         }
-        return merged.AsSpan(0, n);
+        return n;
     }
 }
