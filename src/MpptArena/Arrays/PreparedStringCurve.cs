@@ -201,7 +201,20 @@ internal sealed class PreparedStringCurve
     /// <summary>String current [A] at voltage [V] and dI/dV [A/V].</summary>
     public double CurrentAtVoltage(double voltageV, out double slopeAPerV) => Cubic.Evaluate(voltageV, out slopeAPerV);
 
-    private PiecewiseCubic Cubic => _cubic ??= new PiecewiseCubic(_voltageV, _currentA, _slopeAPerV);
+    private PiecewiseCubic Cubic
+    {
+        get
+        {
+            var cubic = _cubic;
+            if (cubic is null)
+            {
+                // Built on first use; two threads may both build it, and either whole one is kept.
+                cubic = new PiecewiseCubic(_voltageV, _currentA, _slopeAPerV);
+                Volatile.Write(ref _cubic, cubic);
+            }
+            return cubic;
+        }
+    }
 
     /// <summary>
     /// String current [A] and dI/dV [A/V] for a sweep in ascending voltage [V], straight from the nodes (the

@@ -47,7 +47,7 @@ public sealed class PiecewiseCubic
             while (j < n - 2 && _x[j + 1] <= edge) j++;
             bucketStart[b] = j;
         }
-        _bucketStart = bucketStart;
+        Volatile.Write(ref _bucketStart, bucketStart); // published whole
         return bucketStart;
     }
 
