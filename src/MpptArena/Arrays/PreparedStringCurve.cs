@@ -166,9 +166,6 @@ internal sealed class PreparedStringCurve
     /// <summary>How often the preparation sweep evaluated every substring table afresh (the rest were running-sum steps).</summary>
     public int FreshEvaluations { get; }
 
-    /// <summary>Nodes of all substring tables.</summary>
-    public int SubstringNodeCount => _tables.Sum(t => t.NodeCount);
-
     /// <summary>Tabulated node voltages [V], ascending.</summary>
     public ReadOnlySpan<double> NodeVoltagesV => _voltageV;
 

@@ -127,9 +127,6 @@ internal sealed class SubstringTable
     /// <summary>V(I) as a piecewise cubic (voltage [V] of current [A]).</summary>
     public PiecewiseCubic VoltageOfCurrent => _voltageOfCurrent;
 
-    /// <summary>Node currents [A], ascending.</summary>
-    public ReadOnlySpan<double> NodeCurrentsA => _voltageOfCurrent.Nodes;
-
     private readonly record struct Node(double DiodeVoltageV, double VoltageV, double CurrentA, double SlopeVPerA, double CellExponential);
 
     /// <summary>The model's constants in the form the node evaluation uses (reciprocals taken once).</summary>

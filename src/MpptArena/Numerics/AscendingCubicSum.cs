@@ -67,9 +67,6 @@ internal sealed class AscendingCubicSum
     /// <summary>The next breakpoint of any term ahead of the current abscissa; +infinity when none is left.</summary>
     public double NextBreakpoint => _heapCount > 0 ? _heap[0].X : double.PositiveInfinity;
 
-    /// <summary>The term whose breakpoint is <see cref="NextBreakpoint"/>.</summary>
-    public int NextBreakpointTerm => _heap[0].Term;
-
     /// <summary>The piece of term <paramref name="term"/> that holds the current abscissa (numbered as by <see cref="PiecewiseCubic.PieceAt"/>).</summary>
     public int PieceOf(int term) => _piece[term];
 

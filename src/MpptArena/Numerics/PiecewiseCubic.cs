@@ -87,20 +87,6 @@ public sealed class PiecewiseCubic
         return Hermite(j, x, out slope);
     }
 
-    /// <summary>
-    /// f(x) and f'(x) for a sweep in ascending x: <paramref name="interval"/> carries the interval of the
-    /// previous call (start at 0) and only walks forward, so a sorted sweep costs no search.
-    /// </summary>
-    public double EvaluateAscending(double x, ref int interval, out double slope)
-    {
-        if (x <= _xFirst || x >= _xLast) return Linear(x, out slope);
-        int j = interval;
-        var xs = _x;
-        while (x > xs[j + 1]) j++;
-        interval = j;
-        return Hermite(j, x, out slope);
-    }
-
     /// <summary>The linear continuation beyond the first or last node.</summary>
     private double Linear(double x, out double slope)
     {
