@@ -71,10 +71,11 @@ internal sealed class SubstringTable
         }
         var accepted = System.Buffers.ArrayPool<Node>.Shared.Rent(128);
         int n = 0;
-        var a = accepted[n++] = pending[--top];
+        accepted[n++] = pending[--top];
         while (top > 0)
         {
-            var b = pending[top - 1];
+            ref readonly Node a = ref accepted[n - 1];
+            ref readonly Node b = ref pending[top - 1];
             int depth = depths[top - 1];
             var m = Midpoint(constants, a, b);
             bool inside = m.CurrentA < a.CurrentA && m.CurrentA > b.CurrentA;
@@ -92,7 +93,7 @@ internal sealed class SubstringTable
                 System.Buffers.ArrayPool<Node>.Shared.Return(accepted);
                 accepted = larger;
             }
-            accepted[n++] = a = b;
+            accepted[n++] = b;
             top--;
         }
         // Store in ascending current (descending voltage); the cubic keeps its own copy.
@@ -149,6 +150,7 @@ internal sealed class SubstringTable
     /// its values at the ends, exp((x + y)/2) = sqrt(exp(x) exp(y)), a square root instead of an exponential
     /// (both correctly rounded operations, so the result does not depend on the platform's exp).
     /// </summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveInlining)]
     private static Node Midpoint(in Constants p, in Node a, in Node b)
     {
         double vd = 0.5 * (a.DiodeVoltageV + b.DiodeVoltageV);
@@ -174,6 +176,7 @@ internal sealed class SubstringTable
     }
 
     /// <summary>The cubic Hermite through two nodes at current <paramref name="i"/>, in power form in t (the same cubic as <see cref="MonotoneHermite.Value"/>).</summary>
+    [System.Runtime.CompilerServices.MethodImpl(System.Runtime.CompilerServices.MethodImplOptions.AggressiveInlining)]
     private static double Hermite(in Node lo, in Node hi, double i)
     {
         double h = hi.CurrentA - lo.CurrentA;
