@@ -109,17 +109,18 @@ internal sealed class AscendingCubicSum
         double w = _weights[k];
         // The piece being left, at its end: the second coefficient moves with the distance from where it
         // was entered (c2 + 3 c3 d), the third does not.
-        var entered = _entered[k];
+        ref Entry entered = ref _entered[k];
         double d = _x - entered.X;
-        double oldC2 = entered.C2 + 3 * entered.C3 * d;
-        double oldScale2 = entered.Scale2 + 3 * entered.Scale3 * d;
+        double oldC3 = entered.C3, oldScale3 = entered.Scale3;
+        double oldC2 = entered.C2 + 3 * oldC3 * d;
+        double oldScale2 = entered.Scale2 + 3 * oldScale3 * d;
         int piece = ++_piece[k];
         _terms[k].TaylorAtStart(piece, out double newC2, out double newC3, out double newScale2, out double newScale3);
-        _entered[k] = new Entry(_x, newC2, newC3, newScale2, newScale3);
+        entered = new Entry(_x, newC2, newC3, newScale2, newScale3);
         _b2 += w * (newC2 - oldC2);
-        _b3 += w * (newC3 - entered.C3);
+        _b3 += w * (newC3 - oldC3);
         _e2 += 8 * UnitRoundoff * (Math.Abs(w) * (oldScale2 + newScale2) + Math.Abs(_b2));
-        _e3 += 8 * UnitRoundoff * (Math.Abs(w) * (entered.Scale3 + newScale3) + Math.Abs(_b3));
+        _e3 += 8 * UnitRoundoff * (Math.Abs(w) * (oldScale3 + newScale3) + Math.Abs(_b3));
         double next = _terms[k].PieceEnd(piece);
         if (double.IsPositiveInfinity(next)) ReplaceTop(_heap[--_heapCount]); else ReplaceTop(new Breakpoint(next, k));
         return k;
