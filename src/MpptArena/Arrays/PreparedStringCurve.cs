@@ -56,16 +56,14 @@ internal sealed class PreparedStringCurve
         }
         _counts = model.Counts.ToArray();
 
-        // Candidate nodes: the range ends, every table node inside the range with the spacing its own table
-        // has there, and for a blocking diode eight nodes per decade of 1 + I/Is from 1e-9 (the range's lower
-        // end) to the range's highest current, where its logarithm bends. A table node closer than half its spacing to the last node
-        // kept is dropped: where every table is smooth their nodes interleave far more densely than any of
-        // them needs, while at a knee the table that bends keeps all of its nodes. The tables' nodes are
-        // visited in rising current by one sweep that carries the string voltage as a running cubic
-        // (AscendingCubicSum), so a node costs the same whatever the number of substrings.
-        // The blocking diode's nodes run from 1 + I/Is = 1e-9 up to the highest current of the range, which for
-        // a diode with a small saturation current is many decades more than ten: above the last of them its
-        // logarithm would otherwise rest on the tables' nodes, spaced for the substrings alone.
+        // Candidate nodes: the range ends, every table node inside the range, and for a blocking diode eight
+        // nodes per decade of 1 + I/Is from 1e-9 (the range's lower end) up to the range's highest current
+        // (for a diode with a small Is that is twenty decades: its logarithm bends over all of them, and the
+        // tables' nodes are spaced for the substrings alone). A table node closer to the last node kept than
+        // half its own table's spacing there is dropped: where every table is smooth their nodes interleave
+        // far more densely than any of them needs, while at a knee the table that bends keeps all of its
+        // nodes. One sweep in rising current visits them all and carries the string voltage as a running
+        // cubic (AscendingCubicSum), so a node costs the same whatever the number of substrings.
         int blockingNodes = model.HasBlockingDiode
             ? 8 * (int)Math.Ceiling(9.0 + Math.Log10(highCurrentA / _blockingSaturationA + 1.0))
             : 0;
