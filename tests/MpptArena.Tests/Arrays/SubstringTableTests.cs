@@ -33,4 +33,34 @@ public class SubstringTableTests
         // The refinement tests midpoints only; a few times the tolerance allows for the rest of each interval.
         Assert.True(worst < 4, $"worst error {worst:F2} times the tolerance");
     }
+
+    [Fact]
+    public void StringNodesCarryTheSumOfTheirSubstringVoltages()
+    {
+        // Kirchhoff's voltage law: substrings in series carry one current and the string voltage is the sum
+        // of theirs. The string curve's sweep carries that sum as a running cubic instead of summing the 30
+        // tables at every node; at every node it must still equal the direct sum of the same tables (up to the
+        // rounding budget the sweep keeps, a tenth of the table tolerance; in practice about 1e-11 V).
+        var array = ReferenceModules.Array(10, 1);
+        var c = array.UniformConditions(1000, 40);
+        var rng = new Random(7);
+        for (int k = 0; k < c.IrradianceWm2.Length; k++) c.IrradianceWm2[k] = 150 + 850 * rng.NextDouble();
+        var model = array.Solve(c).Strings[0];
+        double isc = model.MaxShortCircuitCurrentA, low = -5 * isc, high = 1.02 * isc + 1e-3;
+        double tolerance = PreparedArrayCurve.SubstringVoltageToleranceV;
+        var curve = new PreparedStringCurve(model, low, high, tolerance);
+        var tables = model.DistinctSubstrings.Select(s => new SubstringTable(s, low, high, tolerance)).ToArray();
+        Assert.Equal(30, tables.Length);
+        var cubic = curve.ToCubic();
+        double worst = 0;
+        foreach (double v in curve.NodeVoltagesV)
+        {
+            double i = cubic.Evaluate(v);
+            double sum = 0;
+            for (int k = 0; k < tables.Length; k++) sum += model.Counts[k] * tables[k].VoltageAtCurrent(i, out _);
+            worst = Math.Max(worst, Math.Abs(sum - v));
+        }
+        Assert.True(worst < 1e-9, $"worst difference {worst:E2} V");
+        Assert.True(curve.FreshEvaluations < curve.NodeCount / 10, $"{curve.FreshEvaluations} fresh evaluations for {curve.NodeCount} nodes");
+    }
 }
