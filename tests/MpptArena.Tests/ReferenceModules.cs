@@ -31,4 +31,13 @@ internal static class ReferenceModules
     /// <summary>An array of the invented module.</summary>
     public static PvArray Array(int modulesPerString, int strings, BypassDiode? blocking = null) =>
         new(Fitted60, new ArrayLayout(3, modulesPerString, strings, Schottky, blocking));
+
+    /// <summary>Every substring of <paramref name="array"/> at its own seeded irradiance in [150, 1000) W/m2, one temperature.</summary>
+    public static ArrayConditions RandomShading(PvArray array, double temperatureC, int seed)
+    {
+        var c = array.UniformConditions(1000, temperatureC);
+        var rng = new Random(seed);
+        for (int k = 0; k < c.IrradianceWm2.Length; k++) c.IrradianceWm2[k] = 150 + 850 * rng.NextDouble();
+        return c;
+    }
 }

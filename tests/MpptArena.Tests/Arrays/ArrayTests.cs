@@ -146,9 +146,7 @@ public class ArrayTests
     {
         // Requirement of the plant: interpolation error below 1e-4 of MPP power anywhere on the curve.
         var array = ReferenceModules.Array(6, 2);
-        var c = array.UniformConditions(1000, 25);
-        var rng = new Random(7);
-        for (int k = 0; k < c.IrradianceWm2.Length; k++) c.IrradianceWm2[k] = 150 + 850 * rng.NextDouble();
+        var c = ReferenceModules.RandomShading(array, 25, seed: 7);
         var exact = array.Solve(c);
         var prepared = new PreparedArrayCurve(exact);
         double pmpp = MppSearch.FindPeaks(prepared).Global.PowerW;

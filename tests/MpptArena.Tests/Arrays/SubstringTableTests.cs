@@ -42,9 +42,7 @@ public class SubstringTableTests
         // tables at every node; at every node it must still equal the direct sum of the same tables (up to the
         // rounding budget the sweep keeps, a tenth of the table tolerance; in practice about 1e-11 V).
         var array = ReferenceModules.Array(10, 1);
-        var c = array.UniformConditions(1000, 40);
-        var rng = new Random(7);
-        for (int k = 0; k < c.IrradianceWm2.Length; k++) c.IrradianceWm2[k] = 150 + 850 * rng.NextDouble();
+        var c = ReferenceModules.RandomShading(array, 40, seed: 7);
         var model = array.Solve(c).Strings[0];
         double isc = model.MaxShortCircuitCurrentA, low = -5 * isc, high = 1.02 * isc + 1e-3;
         double tolerance = PreparedArrayCurve.SubstringVoltageToleranceV;
