@@ -171,20 +171,14 @@ public sealed class PiecewiseCubic
             c2 = c3 = scale2 = scale3 = 0;
             return;
         }
-        double invH = _invH[piece], y0 = _y0[piece], y1 = _y1[piece], a = _m0h[piece], b = _m1h[piece];
-        double invH2 = invH * invH;
-        // About the left node: y0 + (a/h) d + (3 dy - 2a - b)/h^2 d^2 + (a + b - 2 dy)/h^3 d^3, dy = y1 - y0.
-        double dy = y1 - y0;
-        double p2 = (3 * dy - 2 * a - b) * invH2;
-        double p3 = (a + b - 2 * dy) * invH2 * invH;
-        double p1 = a * invH;
+        // About the left node: y0 + (a/h) d + p2 d^2 + p3 d^3, shifted to x = x_k + d.
+        TaylorAtStart(piece, out double p2, out double p3, out double scale2AtStart, out scale3);
+        double p1 = _m0h[piece] * _invH[piece];
         double d = x - _x[piece];
         c3 = p3;
         c2 = p2 + 3 * p3 * d;
         c1 = p1 + (2 * p2 + 3 * p3 * d) * d;
-        c0 = y0 + (p1 + (p2 + p3 * d) * d) * d;
-        double size = Math.Abs(y0) + Math.Abs(y1);
-        scale3 = (2 * size + Math.Abs(a) + Math.Abs(b)) * invH2 * invH;
-        scale2 = (3 * size + 2 * Math.Abs(a) + Math.Abs(b)) * invH2 + 3 * scale3 * Math.Abs(d);
+        c0 = _y0[piece] + (p1 + (p2 + p3 * d) * d) * d;
+        scale2 = scale2AtStart + 3 * scale3 * Math.Abs(d);
     }
 }
