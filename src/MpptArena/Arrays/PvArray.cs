@@ -34,36 +34,83 @@ public sealed record PvArray(ModuleModel Module, ArrayLayout Layout)
             throw new ArgumentException($"conditions hold {conditions.IrradianceWm2.Length} substrings, the layout has {Layout.SubstringCount}");
         }
         var strings = new List<StringModel>();
-        var stringKeys = new List<string>();
+        var stringKeys = new List<(double G, double T)[]>();
+        var stringSubstringCounts = new List<int[]>();
         var stringCounts = new List<int>();
         int perString = Layout.SubstringsPerString;
+        var keys = new (double G, double T)[perString];
         for (int s = 0; s < Layout.StringsInParallel; s++)
         {
-            // Identical substrings (same irradiance and temperature) are solved once per string.
-            var groups = new SortedDictionary<(double G, double T), int>();
+            // Identical substrings (same irradiance and temperature) are solved once per string, in ascending
+            // order of (irradiance, temperature); identical strings once per array.
             for (int k = 0; k < perString; k++)
             {
                 int index = s * perString + k;
-                var key = (conditions.IrradianceWm2[index], conditions.CellTemperatureC[index]);
-                groups[key] = groups.TryGetValue(key, out int c) ? c + 1 : 1;
+                keys[k] = (conditions.IrradianceWm2[index], conditions.CellTemperatureC[index]);
             }
-            string signature = string.Join(";", groups.Select(g => $"{g.Key.G:R},{g.Key.T:R},{g.Value}"));
-            int existing = stringKeys.IndexOf(signature);
+            SortAscending(keys);
+            int distinctCount = 1;
+            for (int k = 1; k < perString; k++) if (keys[k] != keys[k - 1]) distinctCount++;
+            var distinctKeys = new (double G, double T)[distinctCount];
+            var counts = new int[distinctCount];
+            for (int k = 0, d = -1; k < perString; k++)
+            {
+                if (k == 0 || keys[k] != keys[k - 1]) distinctKeys[++d] = keys[k];
+                counts[d]++;
+            }
+            int existing = IndexOfString(stringKeys, stringSubstringCounts, distinctKeys, counts);
             if (existing >= 0)
             {
                 stringCounts[existing]++;
                 continue;
             }
-            var distinct = groups.Keys.Select(k => Substring(k.G, k.T)).ToArray();
-            var counts = groups.Values.ToArray();
+            var distinct = new SubstringModel[distinctCount];
+            double weightedT = 0;
+            for (int d = 0; d < distinctCount; d++)
+            {
+                distinct[d] = Substring(distinctKeys[d].G, distinctKeys[d].T);
+                weightedT += distinctKeys[d].T * counts[d];
+            }
             var blocking = Layout.Blocking;
-            double meanT = groups.Sum(g => g.Key.T * g.Value) / perString;
+            double meanT = weightedT / perString;
             strings.Add(blocking is null
                 ? new StringModel(distinct, counts)
                 : new StringModel(distinct, counts, blocking.SaturationCurrentA, blocking.IdealityVoltageV(meanT)));
-            stringKeys.Add(signature);
+            stringKeys.Add(distinctKeys);
+            stringSubstringCounts.Add(counts);
             stringCounts.Add(1);
         }
         return new ExactArrayCurve(strings.ToArray(), stringCounts.ToArray());
+    }
+
+    private static int IndexOfString(List<(double G, double T)[]> keys, List<int[]> counts, (double G, double T)[] candidateKeys, int[] candidateCounts)
+    {
+        for (int j = 0; j < keys.Count; j++)
+        {
+            if (keys[j].AsSpan().SequenceEqual(candidateKeys) && counts[j].AsSpan().SequenceEqual(candidateCounts)) return j;
+        }
+        return -1;
+    }
+
+    /// <summary>Insertion sort by irradiance, then temperature (a string's few distinct values mostly come in runs, so this is close to linear).</summary>
+    private static void SortAscending((double G, double T)[] keys)
+    {
+        for (int k = 1; k < keys.Length; k++)
+        {
+            var key = keys[k];
+            int j = k - 1;
+            while (j >= 0 && Compare(keys[j], key) > 0)
+            {
+                keys[j + 1] = keys[j];
+                j--;
+            }
+            keys[j + 1] = key;
+        }
+    }
+
+    private static int Compare((double G, double T) a, (double G, double T) b)
+    {
+        int byIrradiance = a.G.CompareTo(b.G);
+        return byIrradiance != 0 ? byIrradiance : a.T.CompareTo(b.T);
     }
 }

@@ -20,23 +20,20 @@ public sealed record EnvironmentModel(PiecewiseLinearProfile Irradiance, Tempera
     {
         double g = Math.Max(Irradiance.ValueAt(timeS), 0.0);
         double temperature = Temperature.Profile.ValueAt(timeS);
+        if (Shading.Count == 0)
+        {
+            // Unshaded: every substring gets the same two values, and was written with one pair last time.
+            double cellC = Temperature.CellTemperatureFromProfileValue(temperature, g);
+            if (factors.Length == 0 || (factors[0] == 1.0 && target.IrradianceWm2[0] == g && target.CellTemperatureC[0] == cellC)) return false;
+            Array.Fill(factors, 1.0);
+            Array.Fill(target.IrradianceWm2, g);
+            Array.Fill(target.CellTemperatureC, cellC);
+            return true;
+        }
+        // A change of shade shows as a change of irradiance below (none under a dark sky, where it does not matter).
+        Array.Fill(factors, 1.0);
+        for (int s = 0; s < Shading.Count; s++) Shading[s].Apply(timeS, factors);
         bool changed = false;
-        if (Shading.Count == 0 && factors.Length > 0 && factors[0] == 1.0 && target.IrradianceWm2[0] == g
-            && target.CellTemperatureC[0] == Temperature.CellTemperatureFromProfileValue(temperature, g))
-        {
-            return false; // unshaded, so every substring was written with these same two values last time
-        }
-        if (Shading.Count > 0)
-        {
-            // A change of shade shows as a change of irradiance below (none under a dark sky, where it does not matter).
-            Array.Fill(factors, 1.0);
-            for (int s = 0; s < Shading.Count; s++) Shading[s].Apply(timeS, factors);
-        }
-        else if (factors.Length > 0 && factors[0] != 1.0)
-        {
-            Array.Fill(factors, 1.0);
-            changed = true;
-        }
         // Substrings under the same irradiance share one cell-temperature evaluation.
         double lastG = double.NaN, lastT = double.NaN;
         var irradiance = target.IrradianceWm2;

@@ -39,25 +39,45 @@ public sealed class PiecewiseLinearProfile
     /// <summary>Value at time <paramref name="timeS"/> [s]; at a step the later value.</summary>
     public double ValueAt(double timeS)
     {
-        if (timeS < _timeS[0]) return _value[0];
-        if (timeS >= _timeS[^1]) return _value[^1];
-        int j = Array.BinarySearch(_timeS, timeS);
-        if (j >= 0)
-        {
-            while (j + 1 < _timeS.Length && _timeS[j + 1] == timeS) j++;
-            return _value[j];
-        }
-        j = ~j - 1;
-        double t0 = _timeS[j], t1 = _timeS[j + 1];
+        var times = _timeS;
+        if (timeS < times[0]) return _value[0];
+        if (timeS >= times[^1]) return _value[^1];
+        // times[j] <= timeS < times[j + 1]: the last breakpoint at or before timeS, so at a step the later value.
+        int j = FirstAfter(times, timeS) - 1;
+        double t0 = times[j], t1 = times[j + 1];
         return _value[j] + (_value[j + 1] - _value[j]) * (timeS - t0) / (t1 - t0);
     }
 
     /// <summary>True if a breakpoint (a step or a change of slope) lies in [from, to) [s]. Allocation-free.</summary>
     public bool HasBreakpointIn(double fromS, double toS)
     {
-        int j = Array.BinarySearch(_timeS, fromS);
-        if (j < 0) j = ~j;
-        else while (j > 0 && _timeS[j - 1] == fromS) j--;
+        int j = FirstAtOrAfter(_timeS, fromS);
         return j < _timeS.Length && _timeS[j] < toS;
+    }
+
+    /// <summary>Index of the first time greater than <paramref name="t"/> (the length if none); times sorted ascending.</summary>
+    private static int FirstAfter(double[] times, double t)
+    {
+        int lo = 0, hi = times.Length;
+        while (lo < hi)
+        {
+            int mid = (lo + hi) >>> 1;
+            if (times[mid] <= t) lo = mid + 1;
+            else hi = mid;
+        }
+        return lo;
+    }
+
+    /// <summary>Index of the first time not less than <paramref name="t"/> (the length if none); times sorted ascending.</summary>
+    private static int FirstAtOrAfter(double[] times, double t)
+    {
+        int lo = 0, hi = times.Length;
+        while (lo < hi)
+        {
+            int mid = (lo + hi) >>> 1;
+            if (times[mid] < t) lo = mid + 1;
+            else hi = mid;
+        }
+        return lo;
     }
 }

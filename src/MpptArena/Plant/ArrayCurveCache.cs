@@ -1,3 +1,4 @@
+using System.Runtime.Intrinsics;
 using MpptArena.Arrays;
 
 namespace MpptArena.Plant;
@@ -30,6 +31,8 @@ public sealed class ArrayCurveCache
     private readonly SubstringTableCache _tables = new();
     private readonly StringCurveCache _strings = new();
     private readonly Dictionary<ConditionsKey, (PreparedArrayCurve Curve, PowerPeaks Peaks)> _store = [];
+    private readonly ConditionsKey _probe;
+    private readonly double[] _fingerprintWeights;
     private long _storedNodes;
     private bool _hasCurve;
 
@@ -44,6 +47,10 @@ public sealed class ArrayCurveCache
         _temperatureGridC = 2 * temperatureThresholdC;
         _prepared = new ArrayConditions(array.Layout.SubstringCount);
         _rounded = new ArrayConditions(array.Layout.SubstringCount);
+        _probe = new ConditionsKey(_prepared.IrradianceWm2, _prepared.CellTemperatureC);
+        // Fixed, distinct weights (the golden-ratio sequence) so that states differing anywhere hash apart.
+        _fingerprintWeights = new double[2 * array.Layout.SubstringCount];
+        for (int k = 0; k < _fingerprintWeights.Length; k++) _fingerprintWeights[k] = 1.0 + (k + 1) * 0.6180339887498949 % 1.0;
     }
 
     /// <summary>The prepared curve in force.</summary>
@@ -70,11 +77,12 @@ public sealed class ArrayCurveCache
     /// <summary>Replaces the curve if the rounded <paramref name="conditions"/> changed; returns true if it did.</summary>
     public bool Update(ArrayConditions conditions)
     {
-        Round(conditions, _rounded);
-        if (_hasCurve && Same(_rounded, _prepared)) return false;
+        bool irradianceSame = RoundToGrid(conditions.IrradianceWm2, _rounded.IrradianceWm2, _prepared.IrradianceWm2, _irradianceGridWm2, 0.0);
+        bool temperatureSame = RoundToGrid(conditions.CellTemperatureC, _rounded.CellTemperatureC, _prepared.CellTemperatureC, _temperatureGridC, double.NegativeInfinity);
+        if (_hasCurve && irradianceSame && temperatureSame) return false;
         _prepared.CopyFrom(_rounded);
-        var key = new ConditionsKey(_prepared);
-        if (_store.TryGetValue(key, out var entry))
+        _probe.Refresh(_fingerprintWeights);
+        if (_store.TryGetValue(_probe, out var entry))
         {
             Reuses++;
         }
@@ -90,7 +98,7 @@ public sealed class ArrayCurveCache
                 _store.Clear();
                 _storedNodes = 0;
             }
-            _store[key] = entry;
+            _store[_probe.Copy()] = entry;
             _storedNodes += curve.NodeCount;
             Preparations++;
         }
@@ -99,26 +107,34 @@ public sealed class ArrayCurveCache
         return true;
     }
 
-    private void Round(ArrayConditions c, ArrayConditions rounded)
+    /// <summary>
+    /// Rounds every value to the nearest multiple of <paramref name="grid"/> (ties to even, no lower than
+    /// <paramref name="floor"/>) into <paramref name="rounded"/>; returns true if the result equals
+    /// <paramref name="prepared"/>. Four values at a time where the machine has 256-bit vectors; the
+    /// vector and scalar paths are the same IEEE operations, so the result does not depend on the machine.
+    /// </summary>
+    private static bool RoundToGrid(double[] values, double[] rounded, double[] prepared, double grid, double floor)
     {
-        // Neighbouring substrings mostly share their conditions: round each distinct value once.
-        double lastG = double.NaN, lastGRounded = 0, lastT = double.NaN, lastTRounded = 0;
-        for (int k = 0; k < c.IrradianceWm2.Length; k++)
+        int n = values.Length, k = 0;
+        bool same = true;
+        if (Vector256.IsHardwareAccelerated)
         {
-            double g = c.IrradianceWm2[k], t = c.CellTemperatureC[k];
-            if (g != lastG)
+            var g = Vector256.Create(grid);
+            var f = Vector256.Create(floor);
+            for (; k <= n - Vector256<double>.Count; k += Vector256<double>.Count)
             {
-                lastG = g;
-                lastGRounded = Math.Max(0.0, Math.Round(g / _irradianceGridWm2) * _irradianceGridWm2);
+                var r = Vector256.Max(Vector256.Round(Vector256.LoadUnsafe(ref values[k]) / g) * g, f);
+                r.StoreUnsafe(ref rounded[k]);
+                same &= Vector256.EqualsAll(r, Vector256.LoadUnsafe(ref prepared[k]));
             }
-            if (t != lastT)
-            {
-                lastT = t;
-                lastTRounded = Math.Round(t / _temperatureGridC) * _temperatureGridC;
-            }
-            rounded.IrradianceWm2[k] = lastGRounded;
-            rounded.CellTemperatureC[k] = lastTRounded;
         }
+        for (; k < n; k++)
+        {
+            double r = Math.Max(Math.Round(values[k] / grid) * grid, floor);
+            rounded[k] = r;
+            same &= r == prepared[k];
+        }
+        return same;
     }
 
     private static bool IsUniform(ArrayConditions c)
@@ -131,24 +147,26 @@ public sealed class ArrayCurveCache
         return true;
     }
 
-    private static bool Same(ArrayConditions a, ArrayConditions b) =>
-        a.IrradianceWm2.AsSpan().SequenceEqual(b.IrradianceWm2) && a.CellTemperatureC.AsSpan().SequenceEqual(b.CellTemperatureC);
-
-    /// <summary>Rounded conditions as a dictionary key (copied, with the hash computed once).</summary>
-    private sealed class ConditionsKey : IEquatable<ConditionsKey>
+    /// <summary>
+    /// Rounded conditions as a dictionary key. The cache looks up with one probe that views the prepared
+    /// conditions in place and stores a copy only on a miss, so a look-up allocates nothing.
+    /// </summary>
+    private sealed class ConditionsKey(double[] irradianceWm2, double[] temperatureC) : IEquatable<ConditionsKey>
     {
-        private readonly double[] _irradianceWm2, _temperatureC;
-        private readonly int _hash;
+        private readonly double[] _irradianceWm2 = irradianceWm2, _temperatureC = temperatureC;
+        private int _hash;
 
-        public ConditionsKey(ArrayConditions c)
+        /// <summary>Recomputes the hash after the viewed values changed: a weighted sum of all values (any mix of them serves; equality is checked in full).</summary>
+        public void Refresh(double[] weights)
         {
-            _irradianceWm2 = (double[])c.IrradianceWm2.Clone();
-            _temperatureC = (double[])c.CellTemperatureC.Clone();
-            var hash = new HashCode();
-            foreach (double g in _irradianceWm2) hash.Add(g);
-            foreach (double t in _temperatureC) hash.Add(t);
-            _hash = hash.ToHashCode();
+            double sum = 0;
+            int n = _irradianceWm2.Length;
+            for (int k = 0; k < n; k++) sum += weights[k] * _irradianceWm2[k] + weights[k + n] * _temperatureC[k];
+            _hash = sum.GetHashCode();
         }
+
+        /// <summary>A key holding its own copy of the values, with the same hash.</summary>
+        public ConditionsKey Copy() => new((double[])_irradianceWm2.Clone(), (double[])_temperatureC.Clone()) { _hash = _hash };
 
         public bool Equals(ConditionsKey? other) =>
             other is not null && _hash == other._hash

@@ -10,12 +10,19 @@ public sealed class AdcChannel
 {
     private readonly AdcChannelSettings _settings;
     private readonly DeterministicRandom _random;
+    // The settings' values, read once: a conversion runs several times per tracker sample.
+    private readonly double _gain, _offset, _noiseRms, _lsb, _maxCode;
 
     /// <summary>A channel with its own noise stream.</summary>
     public AdcChannel(AdcChannelSettings settings, ulong seed)
     {
         _settings = settings;
         _random = new DeterministicRandom(seed);
+        _gain = 1.0 + settings.GainError;
+        _offset = settings.Offset;
+        _noiseRms = settings.NoiseRms;
+        _lsb = settings.LeastSignificantBit;
+        _maxCode = settings.MaxCode;
     }
 
     /// <summary>The channel's settings.</summary>
@@ -24,12 +31,12 @@ public sealed class AdcChannel
     /// <summary>One conversion of <paramref name="trueValue"/> [V or A] to a code.</summary>
     public long Convert(double trueValue)
     {
-        double x = trueValue * (1.0 + _settings.GainError) + _settings.Offset;
-        if (_settings.NoiseRms > 0) x += _settings.NoiseRms * _random.NextGaussian();
-        double code = Math.Round(x / _settings.LeastSignificantBit, MidpointRounding.AwayFromZero);
-        return (long)Math.Clamp(code, 0, _settings.MaxCode);
+        double x = trueValue * _gain + _offset;
+        if (_noiseRms > 0) x += _noiseRms * _random.NextGaussian();
+        double code = Math.Round(x / _lsb, MidpointRounding.AwayFromZero);
+        return (long)Math.Clamp(code, 0, _maxCode);
     }
 
     /// <summary>Scaled value [V or A] of an averaged code.</summary>
-    public double Scale(double averageCode) => averageCode * _settings.LeastSignificantBit;
+    public double Scale(double averageCode) => averageCode * _lsb;
 }

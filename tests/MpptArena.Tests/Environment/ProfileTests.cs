@@ -49,6 +49,21 @@ public class ProfileTests
     }
 
     [Fact]
+    public void BreakpointSearchCountsAStepOnceAtItsTimeAndNotBefore()
+    {
+        // Breakpoints at 0, 1, 3 (end of the ramp), 3 (the step) and 4 s; intervals are [from, to).
+        var p = new ProfileBuilder(100).Hold(1).Ramp(300, 2).Step(50).Hold(1).Build();
+        Assert.True(p.HasBreakpointIn(3.0, 3.5));
+        Assert.True(p.HasBreakpointIn(2.5, 3.0 + 1e-12));
+        Assert.False(p.HasBreakpointIn(1.5, 3.0));
+        Assert.False(p.HasBreakpointIn(3.0 + 1e-9, 4.0));
+        Assert.True(p.HasBreakpointIn(3.5, 4.0 + 1e-9));
+        Assert.False(p.HasBreakpointIn(4.5, 9.0));
+        Assert.Equal(300, p.ValueAt(3.0 - 1e-9), 5);
+        Assert.Equal(100, p.ValueAt(-1.0));
+    }
+
+    [Fact]
     public void CloudPassageRisesAboveClearSkyAtItsEdges()
     {
         // Common practice: cloud-edge enhancement lifts irradiance above clear sky for a few seconds.
