@@ -1,3 +1,6 @@
+using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
+
 namespace MpptArena.Sensing;
 
 /// <summary>
@@ -6,12 +9,15 @@ namespace MpptArena.Sensing;
 /// </summary>
 /// <remarks>xoshiro256** by D. Blackman, S. Vigna, "Scrambled linear pseudorandom number generators",
 /// ACM TOMS 47(4), 2021; seeded through SplitMix64 as the authors recommend. Normal deviates by the
-/// Marsaglia polar method (G. Marsaglia, T. A. Bray, SIAM Review 6(3), 1964).</remarks>
+/// ziggurat method (G. Marsaglia, W. W. Tsang, "The Ziggurat Method for Generating Random Variables",
+/// Journal of Statistical Software 5(8), 2000) with 128 layers, taking the layer, the sign and the
+/// uniform from separate bits of one 64-bit draw as J. A. Doornik, "An Improved Ziggurat Method to
+/// Generate Normal Random Samples", 2005, recommends. About 99 % of deviates cost one draw, a multiply
+/// and a compare; only the rare wedge and tail tests call exp or log, so the platform's last-bit
+/// differences in those functions reach far fewer deviates than a method that takes a logarithm for each pair.</remarks>
 public sealed class DeterministicRandom
 {
     private ulong _s0, _s1, _s2, _s3;
-    private double _spare;
-    private bool _hasSpare;
 
     /// <summary>A generator for <paramref name="seed"/>.</summary>
     public DeterministicRandom(ulong seed)
@@ -40,27 +46,70 @@ public sealed class DeterministicRandom
     }
 
     /// <summary>Uniform in [0, 1) with 53 random bits.</summary>
-    public double NextDouble() => (NextUInt64() >> 11) * (1.0 / 9007199254740992.0);
+    public double NextDouble() => (long)(NextUInt64() >> 11) * (1.0 / 9007199254740992.0);
 
     /// <summary>Standard normal deviate.</summary>
     public double NextGaussian()
     {
-        if (_hasSpare)
+        ref double x = ref MemoryMarshal.GetArrayDataReference(Ziggurat.X);
+        while (true)
         {
-            _hasSpare = false;
-            return _spare;
+            ulong bits = NextUInt64();
+            int layer = (int)bits & (Ziggurat.Layers - 1);
+            // Bit 7 is the sign, moved to the sign bit of the result (no branch on a coin toss).
+            long signBit = (long)(bits & Ziggurat.Layers) << 56;
+            double z = (long)(bits >> 11) * (1.0 / 9007199254740992.0) * Unsafe.Add(ref x, layer);
+            // Inside the part of the layer's rectangle that lies wholly under the curve: accept (the common case).
+            if (z < Unsafe.Add(ref x, layer + 1)) return WithSign(z, signBit);
+            if (layer == 0) return WithSign(Tail(), signBit);
+            // The wedge between the rectangle's corner and the curve: accept if a uniform height falls under f(z).
+            double fInner = Ziggurat.F[layer + 1], fOuter = Ziggurat.F[layer];
+            if (fOuter + NextDouble() * (fInner - fOuter) < Math.Exp(-0.5 * z * z)) return WithSign(z, signBit);
         }
-        double u, v, s;
+    }
+
+    private static double WithSign(double magnitude, long signBit) =>
+        BitConverter.Int64BitsToDouble(BitConverter.DoubleToInt64Bits(magnitude) ^ signBit);
+
+    /// <summary>A deviate from the normal tail beyond r, by Marsaglia's method (Marsaglia and Tsang 2000, section 3).</summary>
+    private double Tail()
+    {
+        double r = Ziggurat.TailStart, a, b;
         do
         {
-            u = 2.0 * NextDouble() - 1.0;
-            v = 2.0 * NextDouble() - 1.0;
-            s = u * u + v * v;
-        } while (s >= 1.0 || s == 0.0);
-        double m = Math.Sqrt(-2.0 * Math.Log(s) / s);
-        _spare = v * m;
-        _hasSpare = true;
-        return u * m;
+            a = -Math.Log(1.0 - NextDouble()) / r;
+            b = -Math.Log(1.0 - NextDouble());
+        } while (b + b < a * a);
+        return r + a;
+    }
+
+    /// <summary>
+    /// The 128 layers of equal area v under f(x) = exp(-x^2/2): x[1] = r, x[i+1] = sqrt(-2 ln(v/x[i] + f(x[i]))),
+    /// x[128] = 0; the base layer (rectangle below f(r) plus the tail) is given the width v/f(r).
+    /// r and v from Marsaglia and Tsang 2000 (their 128-layer normal generator).
+    /// </summary>
+    private static class Ziggurat
+    {
+        public const int Layers = 128;
+        public const double TailStart = 3.442619855899;
+        public const double LayerArea = 9.91256303526217e-3;
+        public static readonly double[] X = BuildEdges();
+        public static readonly double[] F = X.Select(x => Math.Exp(-0.5 * x * x)).ToArray();
+
+        private static double[] BuildEdges()
+        {
+            var x = new double[Layers + 1];
+            double r = TailStart, f = Math.Exp(-0.5 * r * r);
+            x[0] = LayerArea / f;
+            x[1] = r;
+            for (int i = 1; i < Layers - 1; i++)
+            {
+                f += LayerArea / x[i];
+                x[i + 1] = Math.Sqrt(-2.0 * Math.Log(f));
+            }
+            x[Layers] = 0.0;
+            return x;
+        }
     }
 
     /// <summary>A seed for an independent stream derived from this seed and a stream number.</summary>

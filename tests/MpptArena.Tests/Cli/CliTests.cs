@@ -103,7 +103,9 @@ public class CliTests
         var summary = MpptArena.Reports.Summary.SummaryJson.Read(Path.Combine(dir, "demo"));
         double Share(string name) => summary.Trackers.Single(t => t.Name == name).Scores["global_peak_time_share"]!.Value;
         Assert.True(Share("scan") > 0.8, $"scan {Share("scan"):F3}");
-        Assert.True(Share("po") < 0.5, $"po {Share("po"):F3}");
+        // Which hill P&O climbs after the shadow arrives depends on where the noise has left it: over seeds
+        // 1 to 7 its share ran from 0.37 to 0.57, the scan tracker's from 0.84 to 0.86. The margin is the claim.
+        Assert.True(Share("po") < Share("scan") - 0.2, $"po {Share("po"):F3}, scan {Share("scan"):F3}");
         Assert.Equal("scan", summary.Ranking[0]);
         Assert.Contains("scan", output);
     }
