@@ -2,7 +2,7 @@ namespace MpptArena.Numerics;
 
 /// <summary>
 /// A C1 piecewise-cubic function stored for fast evaluation: per interval the Hermite data
-/// (y0, y1, h m0, h m1, 1/h), and a uniform bucket index over x (built on first use) so that finding the interval costs a
+/// (x0, y0, y1, h m0, h m1, 1/h) side by side in one record (an evaluation reads one or two cache lines), and a uniform bucket index over x (built on first use) so that finding the interval costs a
 /// multiplication and, on average, less than one comparison instead of a binary search (a bisection
 /// only within a bucket that holds many nodes). Outside the
 /// node range it continues linearly with the end slopes.
@@ -10,7 +10,8 @@ namespace MpptArena.Numerics;
 /// <remarks>Cubic Hermite form as in Fritsch and Carlson, SIAM J. Numer. Anal. 17(2), 1980.</remarks>
 public sealed class PiecewiseCubic
 {
-    private readonly double[] _x, _y0, _y1, _m0h, _m1h, _invH;
+    private readonly double[] _x;
+    private readonly Piece[] _pieces;
     private int[]? _bucketStart;
     private readonly double _bucketScale, _xFirst, _xLast, _yFirst, _yLast, _slopeFirst, _slopeLast;
 
@@ -20,11 +21,11 @@ public sealed class PiecewiseCubic
         int n = x.Length;
         if (n < 2) throw new ArgumentException("a piecewise cubic needs two or more nodes");
         _x = x.ToArray();
-        _y0 = new double[n - 1]; _y1 = new double[n - 1]; _m0h = new double[n - 1]; _m1h = new double[n - 1]; _invH = new double[n - 1];
+        _pieces = new Piece[n - 1];
         for (int k = 0; k < n - 1; k++)
         {
             double h = x[k + 1] - x[k];
-            _y0[k] = y[k]; _y1[k] = y[k + 1]; _m0h[k] = slope[k] * h; _m1h[k] = slope[k + 1] * h; _invH[k] = 1.0 / h;
+            _pieces[k] = new Piece(x[k], y[k], y[k + 1], slope[k] * h, slope[k + 1] * h, 1.0 / h);
         }
         _xFirst = x[0]; _xLast = x[n - 1]; _yFirst = y[0]; _yLast = y[n - 1]; _slopeFirst = slope[0]; _slopeLast = slope[n - 1];
         _bucketScale = 2 * n / (_xLast - _xFirst);
@@ -101,9 +102,10 @@ public sealed class PiecewiseCubic
 
     private double Hermite(int j, double x, out double slope)
     {
-        double invH = _invH[j];
-        double t = (x - _x[j]) * invH;
-        double y0 = _y0[j], y1 = _y1[j], a = _m0h[j], b = _m1h[j];
+        ref readonly var p = ref _pieces[j];
+        double invH = p.InvH;
+        double t = (x - p.X0) * invH;
+        double y0 = p.Y0, y1 = p.Y1, a = p.M0H, b = p.M1H;
         double t2 = t * t, t3 = t2 * t;
         slope = ((6 * t2 - 6 * t) * (y0 - y1) + (3 * t2 - 4 * t + 1) * a + (3 * t2 - 2 * t) * b) * invH;
         return (2 * t3 - 3 * t2 + 1) * y0 + (t3 - 2 * t2 + t) * a + (-2 * t3 + 3 * t2) * y1 + (t3 - t2) * b;
@@ -142,12 +144,13 @@ public sealed class PiecewiseCubic
     /// <summary>The second and third Taylor coefficients of an interior piece about its first node, with their bounds (see <see cref="Taylor"/>).</summary>
     internal void TaylorAtStart(int piece, out double c2, out double c3, out double scale2, out double scale3)
     {
-        if (piece < 0 || piece >= _y0.Length)
+        if (piece < 0 || piece >= _pieces.Length)
         {
             c2 = c3 = scale2 = scale3 = 0;
             return;
         }
-        double invH = _invH[piece], y0 = _y0[piece], y1 = _y1[piece], a = _m0h[piece], b = _m1h[piece];
+        ref readonly var p = ref _pieces[piece];
+        double invH = p.InvH, y0 = p.Y0, y1 = p.Y1, a = p.M0H, b = p.M1H;
         double invH2 = invH * invH, dy = y1 - y0;
         c2 = (3 * dy - 2 * a - b) * invH2;
         c3 = (a + b - 2 * dy) * invH2 * invH;
@@ -164,7 +167,7 @@ public sealed class PiecewiseCubic
     /// </summary>
     internal void Taylor(int piece, double x, out double c0, out double c1, out double c2, out double c3, out double scale2, out double scale3)
     {
-        if (piece < 0 || piece >= _y0.Length)
+        if (piece < 0 || piece >= _pieces.Length)
         {
             c1 = piece < 0 ? _slopeFirst : _slopeLast;
             c0 = piece < 0 ? _yFirst + _slopeFirst * (x - _xFirst) : _yLast + _slopeLast * (x - _xLast);
@@ -173,12 +176,16 @@ public sealed class PiecewiseCubic
         }
         // About the left node: y0 + (a/h) d + p2 d^2 + p3 d^3, shifted to x = x_k + d.
         TaylorAtStart(piece, out double p2, out double p3, out double scale2AtStart, out scale3);
-        double p1 = _m0h[piece] * _invH[piece];
-        double d = x - _x[piece];
+        ref readonly var p = ref _pieces[piece];
+        double p1 = p.M0H * p.InvH;
+        double d = x - p.X0;
         c3 = p3;
         c2 = p2 + 3 * p3 * d;
         c1 = p1 + (2 * p2 + 3 * p3 * d) * d;
-        c0 = _y0[piece] + (p1 + (p2 + p3 * d) * d) * d;
+        c0 = p.Y0 + (p1 + (p2 + p3 * d) * d) * d;
         scale2 = scale2AtStart + 3 * scale3 * Math.Abs(d);
     }
+
+    /// <summary>One interval's Hermite data: left node x0, end values y0 and y1, end slopes times the width, 1/width.</summary>
+    private readonly record struct Piece(double X0, double Y0, double Y1, double M0H, double M1H, double InvH);
 }

@@ -19,6 +19,7 @@ namespace MpptArena.Plant;
 public sealed class IdealSourceFrontEnd(ConverterSettings settings) : IFrontEnd
 {
     private double _v, _vOperating, _i;
+    private double _lastDtS = double.NaN, _decay;
     private EnergyLedger _energy;
 
     /// <inheritdoc/>
@@ -40,7 +41,13 @@ public sealed class IdealSourceFrontEnd(ConverterSettings settings) : IFrontEnd
     public void Step(double dtS, PreparedArrayCurve curve, double command, TrackerCommandKind kind)
     {
         double tau = settings.LagTimeConstantS;
-        double s1 = Math.Exp(-dtS / tau);
+        if (dtS != _lastDtS)
+        {
+            // Runs step by one fixed h: the lag's decay over a step is computed once.
+            _lastDtS = dtS;
+            _decay = Math.Exp(-dtS / tau);
+        }
+        double s1 = _decay;
         double voc = curve.OpenCircuitVoltageV;
         double dv = _v - command;
         double pRef = Power(curve, command, voc, out _);
