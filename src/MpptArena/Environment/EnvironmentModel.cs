@@ -16,10 +16,13 @@ public sealed record EnvironmentModel(PiecewiseLinearProfile Irradiance, Tempera
     /// <param name="timeS">Simulation time [s].</param>
     /// <param name="target">Conditions to overwrite.</param>
     /// <param name="factors">Shading transmittance of each substring [-], overwritten.</param>
-    public bool Evaluate(double timeS, ArrayConditions target, double[] factors)
+    public bool Evaluate(double timeS, ArrayConditions target, double[] factors) => Evaluate(timeS, target, factors, new EnvironmentCursor());
+
+    /// <summary>As <see cref="Evaluate(double, ArrayConditions, double[])"/>, reading the profiles from where <paramref name="cursor"/> left them.</summary>
+    public bool Evaluate(double timeS, ArrayConditions target, double[] factors, EnvironmentCursor cursor)
     {
-        double g = Math.Max(Irradiance.ValueAt(timeS), 0.0);
-        double temperature = Temperature.Profile.ValueAt(timeS);
+        double g = Math.Max(Irradiance.ValueAt(timeS, ref cursor.IrradianceSegment), 0.0);
+        double temperature = Temperature.Profile.ValueAt(timeS, ref cursor.TemperatureSegment);
         if (Shading.Count == 0)
         {
             // Unshaded: every substring gets the same two values, and was written with one pair last time.
@@ -54,5 +57,13 @@ public sealed record EnvironmentModel(PiecewiseLinearProfile Irradiance, Tempera
             }
         }
         return changed;
+    }
+
+    /// <summary>The event a profile breakpoint in [from, to) [s] marks ("irradiance change" or "temperature change"), or null if there is none.</summary>
+    public string? ProfileBreakpointIn(double fromS, double toS, EnvironmentCursor cursor)
+    {
+        if (Irradiance.HasBreakpointIn(fromS, toS, ref cursor.NextIrradianceBreakpoint)) return "irradiance change";
+        if (Temperature.Profile.HasBreakpointIn(fromS, toS, ref cursor.NextTemperatureBreakpoint)) return "temperature change";
+        return null;
     }
 }

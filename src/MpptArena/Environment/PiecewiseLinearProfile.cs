@@ -48,11 +48,49 @@ public sealed class PiecewiseLinearProfile
         return _value[j] + (_value[j + 1] - _value[j]) * (timeS - t0) / (t1 - t0);
     }
 
+    /// <summary>
+    /// As <see cref="ValueAt(double)"/>, starting from the segment a caller that steps forward in time read
+    /// last (<paramref name="segment"/>, updated; any value is safe, a wrong one only costs a search).
+    /// </summary>
+    public double ValueAt(double timeS, ref int segment)
+    {
+        var times = _timeS;
+        if (timeS < times[0]) return _value[0];
+        if (timeS >= times[^1]) return _value[^1];
+        int j = segment;
+        // The segment holds timeS when times[j] <= timeS < times[j + 1]; one such j exists (the same ValueAt finds).
+        if ((uint)j >= (uint)(times.Length - 1) || times[j] > timeS) j = FirstAfter(times, timeS) - 1;
+        else
+        {
+            int walked = 0;
+            while (timeS >= times[j + 1] && ++walked <= 4) j++;
+            if (timeS >= times[j + 1]) j = FirstAfter(times, timeS) - 1;
+        }
+        segment = j;
+        double t0 = times[j], t1 = times[j + 1];
+        return _value[j] + (_value[j + 1] - _value[j]) * (timeS - t0) / (t1 - t0);
+    }
+
     /// <summary>True if a breakpoint (a step or a change of slope) lies in [from, to) [s]. Allocation-free.</summary>
     public bool HasBreakpointIn(double fromS, double toS)
     {
         int j = FirstAtOrAfter(_timeS, fromS);
         return j < _timeS.Length && _timeS[j] < toS;
+    }
+
+    /// <summary>
+    /// As <see cref="HasBreakpointIn(double, double)"/> for a caller whose intervals move forward:
+    /// <paramref name="next"/> holds the index of the first breakpoint at or after the last interval's start
+    /// (updated; any value is safe, a wrong one only costs a search).
+    /// </summary>
+    public bool HasBreakpointIn(double fromS, double toS, ref int next)
+    {
+        var times = _timeS;
+        int j = next;
+        if ((uint)j > (uint)times.Length || (j > 0 && times[j - 1] >= fromS)) j = FirstAtOrAfter(times, fromS);
+        else while (j < times.Length && times[j] < fromS) j++;
+        next = j;
+        return j < times.Length && times[j] < toS;
     }
 
     /// <summary>Index of the first time greater than <paramref name="t"/> (the length if none); times sorted ascending.</summary>

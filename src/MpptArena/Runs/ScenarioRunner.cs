@@ -47,7 +47,8 @@ public sealed class ScenarioRunner
         var factors = new double[substrings];
         var previousFactors = new double[substrings];
         var cache = new ArrayCurveCache(scenario.Array, sim.ReprepareIrradianceWm2, sim.ReprepareTemperatureC);
-        env.Evaluate(0.0, conditions, factors);
+        var cursor = new Environment.EnvironmentCursor();
+        env.Evaluate(0.0, conditions, factors, cursor);
         Array.Copy(factors, previousFactors, substrings);
         cache.Update(conditions);
 
@@ -84,8 +85,8 @@ public sealed class ScenarioRunner
             if ((n - 1) % envEvery == 0 && n > 1)
             {
                 // Nothing below runs per substring unless the sky actually moved since the last tick.
-                bool changed = env.Evaluate(tStart, conditions, factors);
-                string? eventLabel = DetectEvent(scenario, lastTickS, tStart, changed, factors, previousFactors);
+                bool changed = env.Evaluate(tStart, conditions, factors, cursor);
+                string? eventLabel = DetectEvent(scenario, cursor, lastTickS, tStart, changed, factors, previousFactors);
                 if (changed || eventLabel is not null) lastChangeS = tStart;
                 if (changed)
                 {
@@ -211,11 +212,11 @@ public sealed class ScenarioRunner
         };
     }
 
-    private static string? DetectEvent(Scenario scenario, double fromS, double toS, bool changed, double[] factors, double[] previous)
+    private static string? DetectEvent(Scenario scenario, Environment.EnvironmentCursor cursor, double fromS, double toS, bool changed, double[] factors, double[] previous)
     {
         var env = scenario.Environment;
-        if (env.Irradiance.HasBreakpointIn(fromS + 1e-12, toS + 1e-12)) return "irradiance change";
-        if (env.Temperature.Profile.HasBreakpointIn(fromS + 1e-12, toS + 1e-12)) return "temperature change";
+        string? profileEvent = env.ProfileBreakpointIn(fromS + 1e-12, toS + 1e-12, cursor);
+        if (profileEvent is not null) return profileEvent;
         if (!changed || env.Shading.Count == 0) return null;
         for (int k = 0; k < factors.Length; k++)
         {

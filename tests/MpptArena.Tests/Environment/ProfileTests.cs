@@ -64,6 +64,25 @@ public class ProfileTests
     }
 
     [Fact]
+    public void ForwardCursorReadsTheSameValuesAndBreakpointsAsAFullSearch()
+    {
+        // Steps, ramps and holds; times mostly forward in uneven strides, with jumps back and far ahead.
+        var p = new ProfileBuilder(100).Hold(1).Ramp(300, 2).Step(50).Hold(0.5).Ramp(900, 0.25).Step(900).Hold(3).Ramp(0, 7).Build();
+        var random = new Random(3);
+        int segment = 0, next = 0;
+        double t = -1;
+        for (int k = 0; k < 5000; k++)
+        {
+            double from = t;
+            t += random.Next(10) switch { 0 => -2.0 * random.NextDouble(), 1 => 3 * random.NextDouble(), _ => 0.01 * random.NextDouble() };
+            if (random.Next(50) == 0) t = 3.0; // exactly on the step
+            Assert.Equal(p.ValueAt(t), p.ValueAt(t, ref segment));
+            Assert.Equal(p.HasBreakpointIn(from, t), p.HasBreakpointIn(from, t, ref next));
+            if (t > 20) t = -1;
+        }
+    }
+
+    [Fact]
     public void CloudPassageRisesAboveClearSkyAtItsEdges()
     {
         // Common practice: cloud-edge enhancement lifts irradiance above clear sky for a few seconds.
