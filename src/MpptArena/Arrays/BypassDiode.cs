@@ -1,3 +1,4 @@
+using MpptArena.Numerics;
 using MpptArena.Pv;
 
 namespace MpptArena.Arrays;
@@ -20,7 +21,7 @@ public sealed record BypassDiode(double SaturationCurrentA, double IdealityFacto
     public static BypassDiode FromForwardVoltage(double forwardVoltageV, double atCurrentA, double idealityFactor = 1.0)
     {
         double nvt = idealityFactor * PhysicalConstants.ThermalVoltageV(PhysicalConstants.KelvinFromCelsius(25.0));
-        return new BypassDiode(atCurrentA / double.ExpM1(forwardVoltageV / nvt), idealityFactor);
+        return new BypassDiode(atCurrentA / PortableMath.ExpM1(forwardVoltageV / nvt), idealityFactor);
     }
 
     /// <summary>n Vt [V] at a junction temperature.</summary>

@@ -65,7 +65,7 @@ internal sealed class PreparedStringCurve
         // nodes. One sweep in rising current visits them all and carries the string voltage as a running
         // cubic (AscendingCubicSum), so a node costs the same whatever the number of substrings.
         int blockingNodes = model.HasBlockingDiode
-            ? 8 * (int)Math.Ceiling(9.0 + Math.Log10(highCurrentA / _blockingSaturationA + 1.0))
+            ? 8 * (int)Math.Ceiling(9.0 + PortableMath.Log10(highCurrentA / _blockingSaturationA + 1.0))
             : 0;
         var cubics = new PiecewiseCubic[_tables.Length];
         var weights = new double[_tables.Length];
@@ -110,7 +110,7 @@ internal sealed class PreparedStringCurve
             double v = sum.Value, dv = sum.Slope;
             if (_blockingSaturationA > 0)
             {
-                v -= _blockingIdealityV * Math.Log(i / _blockingSaturationA + 1.0);
+                v -= _blockingIdealityV * PortableMath.Log(i / _blockingSaturationA + 1.0);
                 dv -= _blockingIdealityV / (i + _blockingSaturationA);
             }
             if (n > 0 && v >= voltage[n - 1]) return;
@@ -125,7 +125,7 @@ internal sealed class PreparedStringCurve
             if (!model.HasBlockingDiode) return double.PositiveInfinity;
             for (; d <= blockingNodes; d++)
             {
-                double c = _blockingSaturationA * (Math.Pow(10.0, d / 8.0 - 9.0) - 1.0);
+                double c = _blockingSaturationA * (PortableMath.Exp10(d / 8.0 - 9.0) - 1.0);
                 if (c > aboveA) return c;
             }
             return double.PositiveInfinity;
@@ -172,7 +172,7 @@ internal sealed class PreparedStringCurve
     {
         double v = 0;
         for (int k = 0; k < _tables.Length; k++) v += _counts[k] * _tables[k].VoltageOfCurrent.EvaluateOnce(currentA);
-        if (_blockingSaturationA > 0) v -= _blockingIdealityV * Math.Log(currentA / _blockingSaturationA + 1.0);
+        if (_blockingSaturationA > 0) v -= _blockingIdealityV * PortableMath.Log(currentA / _blockingSaturationA + 1.0);
         return v;
     }
 

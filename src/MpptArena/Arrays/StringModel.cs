@@ -64,7 +64,7 @@ public sealed class StringModel
                 slopeVPerA = double.NegativeInfinity;
                 return double.PositiveInfinity;
             }
-            v -= _blockingIdealityV * Math.Log(x);
+            v -= _blockingIdealityV * PortableMath.Log(x);
             dv -= _blockingIdealityV / (currentA + _blockingSaturationA);
         }
         slopeVPerA = dv;

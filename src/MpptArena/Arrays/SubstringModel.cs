@@ -25,7 +25,7 @@ public readonly record struct SubstringModel(
 
     /// <summary>Bypass diode current [A] at substring voltage [V] (forward when the substring is driven negative).</summary>
     public double BypassCurrent(double voltageV) =>
-        BypassSaturationCurrentA * double.ExpM1(Math.Min(-voltageV / BypassIdealityVoltageV, 700.0));
+        BypassSaturationCurrentA * PortableMath.ExpM1(Math.Min(-voltageV / BypassIdealityVoltageV, 700.0));
 
     /// <summary>Substring voltage [V] at which it carries <paramref name="currentA"/> [A], and dV/dI [V/A] there.</summary>
     /// <remarks>
@@ -47,7 +47,7 @@ public readonly record struct SubstringModel(
         {
             // Widened by a hundredth of n Vt: at the bound itself f is zero up to rounding, and a rounding
             // of the wrong sign would leave the bracket without a sign change (seen for dark substrings).
-            lo = -BypassIdealityVoltageV * (Math.Log((currentA - isc) / BypassSaturationCurrentA + 1.0) + 0.01);
+            lo = -BypassIdealityVoltageV * (PortableMath.Log((currentA - isc) / BypassSaturationCurrentA + 1.0) + 0.01);
             hi = 0.0;
             v = lo;
         }
@@ -61,7 +61,7 @@ public readonly record struct SubstringModel(
     public double CurrentAndSlopeAtVoltage(double voltageV, out double slopeAPerV)
     {
         double ic = SingleDiodeModel.CurrentAtVoltage(Cells, voltageV);
-        double e = Math.Exp(Math.Min(-voltageV / BypassIdealityVoltageV, 700.0));
+        double e = PortableMath.Exp(Math.Min(-voltageV / BypassIdealityVoltageV, 700.0));
         slopeAPerV = SingleDiodeModel.SlopeAtPoint(Cells, voltageV, ic) - BypassSaturationCurrentA / BypassIdealityVoltageV * e;
         return ic + BypassSaturationCurrentA * (e - 1.0);
     }
@@ -69,7 +69,7 @@ public readonly record struct SubstringModel(
     /// <summary>Slope of the substring's total current with voltage, dI/dV [A/V], at voltage [V].</summary>
     public double SlopeAtVoltage(double voltageV, double cellCurrentA) =>
         SingleDiodeModel.SlopeAtPoint(Cells, voltageV, cellCurrentA)
-        - BypassSaturationCurrentA / BypassIdealityVoltageV * Math.Exp(Math.Min(-voltageV / BypassIdealityVoltageV, 700.0));
+        - BypassSaturationCurrentA / BypassIdealityVoltageV * PortableMath.Exp(Math.Min(-voltageV / BypassIdealityVoltageV, 700.0));
 
     private readonly struct CurrentMismatch(SubstringModel s, double currentA) : IFunctionWithSlope
     {

@@ -35,10 +35,10 @@ internal sealed class SubstringTable
         double nvt = model.BypassIdealityVoltageV;
         double il = cells.PhotocurrentA;
         double vdHigh = Math.Max(
-            cells.ModifiedIdealityV * Math.Log(Math.Max(il - lowCurrentA, 0.0) / cells.SaturationCurrentA + 1.0),
+            cells.ModifiedIdealityV * PortableMath.Log(Math.Max(il - lowCurrentA, 0.0) / cells.SaturationCurrentA + 1.0),
             nvt + Math.Max(il, 0.0) * rs);
         double excess = Math.Max(highCurrentA - model.ShortCircuitCurrentA, 1e-12);
-        double vLow = -nvt * Math.Log(excess / model.BypassSaturationCurrentA + 1.0) - nvt;
+        double vLow = -nvt * PortableMath.Log(excess / model.BypassSaturationCurrentA + 1.0) - nvt;
         double vdLow = (vLow + il * rs) / (1.0 + cells.ShuntConductanceS * rs);
         if (vdLow > 0) vdLow = vLow + Pv.SingleDiodeModel.CurrentAtVoltage(cells, vLow) * rs; // only for an extreme Rs
 
@@ -143,7 +143,7 @@ internal sealed class SubstringTable
     }
 
     /// <summary>The substring's operating point at cell diode voltage <paramref name="vd"/> [V], all explicit.</summary>
-    private static Node Evaluate(in Constants p, double vd) => Evaluate(p, vd, Math.Exp(Math.Min(vd * p.InverseIdealityPerV, 700.0)));
+    private static Node Evaluate(in Constants p, double vd) => Evaluate(p, vd, PortableMath.Exp(Math.Min(vd * p.InverseIdealityPerV, 700.0)));
 
     /// <summary>
     /// The operating point halfway in diode voltage between two nodes: exp(Vd/a) there is the geometric mean of
@@ -168,7 +168,7 @@ internal sealed class SubstringTable
         // Above fifty n Vt the bypass diode's exponential is below 2e-22: it changes neither its current
         // (Is (e - 1) rounds to -Is) nor, in relative terms, the slope, so it is not computed.
         double x = -v * p.InverseBypassIdealityPerV;
-        double eb = x < -50.0 ? 0.0 : Math.Exp(Math.Min(x, 700.0));
+        double eb = x < -50.0 ? 0.0 : PortableMath.Exp(Math.Min(x, 700.0));
         double ib = p.BypassSaturationCurrentA * (eb - 1.0);
         double bypassConductanceS = p.BypassSaturationCurrentA * p.InverseBypassIdealityPerV * eb;
         // dI/dV = dIc/dVd / (dV/dVd) - g_bypass, so dV/dI = (dV/dVd) / (dIc/dVd - g_bypass dV/dVd).

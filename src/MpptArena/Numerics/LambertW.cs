@@ -23,7 +23,7 @@ public static class LambertW
         if (x == 0.0) return 0.0;
         if (double.IsPositiveInfinity(x)) return double.PositiveInfinity;
         if (x == -InverseE) return -1.0;
-        if (x > 1e300) return WrightOmega(Math.Log(x));
+        if (x > 1e300) return WrightOmega(PortableMath.Log(x));
 
         double w;
         if (x < -0.3)
@@ -34,12 +34,12 @@ public static class LambertW
         }
         else if (x < 3.0)
         {
-            w = Math.Log(1.0 + x) * (1.0 - Math.Log(1.0 + Math.Log(1.0 + x)) / (2.0 + Math.Log(1.0 + x)));
+            w = PortableMath.Log(1.0 + x) * (1.0 - PortableMath.Log(1.0 + PortableMath.Log(1.0 + x)) / (2.0 + PortableMath.Log(1.0 + x)));
         }
         else
         {
             // Asymptotic series (Corless et al. 1996, eq. 4.19).
-            double l1 = Math.Log(x), l2 = Math.Log(l1);
+            double l1 = PortableMath.Log(x), l2 = PortableMath.Log(l1);
             w = l1 - l2 + l2 / l1;
         }
         return HalleyOnProduct(x, w);
@@ -55,7 +55,7 @@ public static class LambertW
         if (z < -30.0)
         {
             // omega = e^z (1 - e^z + ...): the correction is below double precision here.
-            double e = Math.Exp(z);
+            double e = PortableMath.Exp(z);
             return e * (1.0 - e);
         }
         double w;
@@ -63,20 +63,20 @@ public static class LambertW
         {
             // Winitzki's approximation of W0(x), x = e^z (S. Winitzki, "Uniform approximations for
             // transcendental functions", ICCSA 2003), good to about 1e-2 relative here.
-            double l = Math.Log(1.0 + Math.Exp(z));
-            w = l * (1.0 - Math.Log(1.0 + l) / (2.0 + l));
+            double l = PortableMath.Log(1.0 + PortableMath.Exp(z));
+            w = l * (1.0 - PortableMath.Log(1.0 + l) / (2.0 + l));
         }
         else
         {
             // omega ~ z - ln z + ln z / z (Lawrence, Corless, Jeffrey 2012, sec. 3).
-            double lz = Math.Log(z);
+            double lz = PortableMath.Log(z);
             w = z - lz + lz / z;
         }
         // Fourth-order iteration of Fritsch, Shafer and Crowley (Comm. ACM 16(2), 1973), as used by
         // Algorithm 917: each step roughly quadruples the number of correct digits.
         for (int i = 0; i < 6; i++)
         {
-            double r = z - w - Math.Log(w);
+            double r = z - w - PortableMath.Log(w);
             double wp1 = w + 1.0;
             double u = 2.0 * wp1 * (wp1 + 2.0 / 3.0 * r);
             double next = w * (1.0 + r / wp1 * (u - r) / (u - 2.0 * r));
@@ -91,7 +91,7 @@ public static class LambertW
     {
         for (int i = 0; i < MaxIterations; i++)
         {
-            double ew = Math.Exp(w);
+            double ew = PortableMath.Exp(w);
             double f = w * ew - x;
             double wp1 = w + 1.0;
             if (wp1 == 0.0) return w;

@@ -27,13 +27,13 @@ public readonly record struct MatrixExponential2(double A11, double A12, double 
             double z = delta * t;
             if (z < 0.5)
             {
-                double e = Math.Exp(mu * t), z2 = z * z;
-                f0 = e * Math.Cosh(z);
+                double e = PortableMath.Exp(mu * t), z2 = z * z;
+                f0 = e * PortableMath.Cosh(z);
                 f1 = e * t * (1 + z2 / 6 * (1 + z2 / 20 * (1 + z2 / 42 * (1 + z2 / 72))));
             }
             else
             {
-                double ePlus = Math.Exp((mu + delta) * t), eMinus = Math.Exp((mu - delta) * t);
+                double ePlus = PortableMath.Exp((mu + delta) * t), eMinus = PortableMath.Exp((mu - delta) * t);
                 f0 = 0.5 * (ePlus + eMinus);
                 f1 = 0.5 * (ePlus - eMinus) / delta;
             }
@@ -41,9 +41,9 @@ public readonly record struct MatrixExponential2(double A11, double A12, double 
         else
         {
             double omega = Math.Sqrt(-delta2);
-            double e = Math.Exp(mu * t);
-            f0 = e * Math.Cos(omega * t);
-            f1 = e * Math.Sin(omega * t) / omega;
+            double e = PortableMath.Exp(mu * t);
+            f0 = e * PortableMath.Cos(omega * t);
+            f1 = e * PortableMath.Sin(omega * t) / omega;
         }
         return new MatrixExponential2(f0 + f1 * half, f1 * a12, f1 * a21, f0 - f1 * half);
     }

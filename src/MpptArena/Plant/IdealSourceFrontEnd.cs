@@ -1,4 +1,5 @@
 using MpptArena.Arrays;
+using MpptArena.Numerics;
 using MpptArena.Trackers;
 
 namespace MpptArena.Plant;
@@ -45,7 +46,7 @@ public sealed class IdealSourceFrontEnd(ConverterSettings settings) : IFrontEnd
         {
             // Runs step by one fixed h: the lag's decay over a step is computed once.
             _lastDtS = dtS;
-            _decay = Math.Exp(-dtS / tau);
+            _decay = PortableMath.Exp(-dtS / tau);
         }
         double s1 = _decay;
         double voc = curve.OpenCircuitVoltageV;

@@ -1,3 +1,5 @@
+using MpptArena.Numerics;
+
 namespace MpptArena.Pv;
 
 /// <summary>
@@ -28,7 +30,7 @@ public static class DeSotoDatasheetFit
         {
             foreach (double rsFraction in new[] { 0.3, 0.1, 0.5, 0.02 })
             {
-                var fitted = TryNewton(sheet, Math.Log(n * vt), Math.Log(rsFraction * rsScale));
+                var fitted = TryNewton(sheet, PortableMath.Log(n * vt), PortableMath.Log(rsFraction * rsScale));
                 if (fitted is not null) return fitted;
             }
         }
@@ -67,7 +69,7 @@ public static class DeSotoDatasheetFit
     public static double IdealFillFactor(double normalisedVoc)
     {
         double vmp = Numerics.LambertW.WrightOmega(normalisedVoc + 1.0) - 1.0;
-        double imp = -double.ExpM1(vmp - normalisedVoc) / -double.ExpM1(-normalisedVoc);
+        double imp = -PortableMath.ExpM1(vmp - normalisedVoc) / -PortableMath.ExpM1(-normalisedVoc);
         return vmp * imp / normalisedVoc;
     }
 
@@ -135,10 +137,10 @@ public static class DeSotoDatasheetFit
     private static (double Slope, double Voc)? Residuals(ModuleDatasheet s, double lnA, double lnRs, out SingleDiodeParameters p)
     {
         p = default;
-        double a = Math.Exp(lnA), rs = Math.Exp(lnRs);
+        double a = PortableMath.Exp(lnA), rs = PortableMath.Exp(lnRs);
         double isc = s.ShortCircuitCurrentA, voc = s.OpenCircuitVoltageV, imp = s.MppCurrentA, vmp = s.MppVoltageV;
         if (voc / a > 700) return null;
-        double e1 = double.ExpM1(isc * rs / a), e2 = double.ExpM1(voc / a), e3 = double.ExpM1((vmp + imp * rs) / a);
+        double e1 = PortableMath.ExpM1(isc * rs / a), e2 = PortableMath.ExpM1(voc / a), e3 = PortableMath.ExpM1((vmp + imp * rs) / a);
         // Rows (Isc) - (Voc) and (MPP) - (Voc) eliminate IL:
         //   -I0 (e1 - e2) - Gsh (Isc Rs - Voc) = Isc;  -I0 (e3 - e2) - Gsh (Vmp + Imp Rs - Voc) = Imp.
         double a11 = -(e1 - e2), a12 = -(isc * rs - voc);

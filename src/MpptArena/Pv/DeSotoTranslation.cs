@@ -1,3 +1,5 @@
+using MpptArena.Numerics;
+
 namespace MpptArena.Pv;
 
 /// <summary>
@@ -35,9 +37,11 @@ public static class DeSotoTranslation
         double il = Math.Max(s * (r.PhotocurrentA + module.IscTemperatureCoefficientAPerK * dT), 0.0);
         double egRef = module.BandGapEv;
         double eg = egRef * (1.0 + BandGapTemperatureCoefficientPerK * dT);
-        double i0 = r.SaturationCurrentA * Math.Pow(tK / tRefK, 3)
-                    * Math.Exp((egRef / tRefK - eg / tK) / PhysicalConstants.BoltzmannEvPerK);
+        double i0 = r.SaturationCurrentA * Cube(tK / tRefK)
+                    * PortableMath.Exp((egRef / tRefK - eg / tK) / PhysicalConstants.BoltzmannEvPerK);
         double gsh = r.ShuntConductanceS * s;
         return new SingleDiodeParameters(il, i0, a, r.SeriesResistanceOhm, gsh);
     }
+
+    private static double Cube(double x) => x * x * x;
 }

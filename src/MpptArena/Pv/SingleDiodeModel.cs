@@ -26,17 +26,17 @@ public static class SingleDiodeModel
         double rs = p.SeriesResistanceOhm, gsh = p.ShuntConductanceS;
         if (rs <= 0.0)
         {
-            return il - i0 * double.ExpM1(voltageV / a) - voltageV * gsh;
+            return il - i0 * PortableMath.ExpM1(voltageV / a) - voltageV * gsh;
         }
         // Jain & Kapoor (2004) eq. 5 divided through by Rsh so that Gsh = 0 is allowed.
         double k = 1.0 + rs * gsh;
-        double lnM = Math.Log(rs * i0 / (a * k));
+        double lnM = PortableMath.Log(rs * i0 / (a * k));
         double z = lnM + (rs * (il + i0) + voltageV) / (a * k);
         double w = LambertW.WrightOmega(z);
         if (z > 1.0)
         {
             // a (z - W)/Rs = a ln(W)/Rs ... rearranged: I = (a (ln W - ln M) - V) / Rs.
-            return (a * (Math.Log(w) - lnM) - voltageV) / rs;
+            return (a * (PortableMath.Log(w) - lnM) - voltageV) / rs;
         }
         return ((il + i0) - voltageV * gsh) / k - a / rs * w;
     }
@@ -53,17 +53,17 @@ public static class SingleDiodeModel
         if (gsh <= 0.0)
         {
             // No shunt path: V = a ln((IL + I0 - I)/I0) - I Rs, defined for I < IL + I0.
-            return x > 0 ? a * Math.Log(x / i0) - currentA * rs : double.NegativeInfinity;
+            return x > 0 ? a * PortableMath.Log(x / i0) - currentA * rs : double.NegativeInfinity;
         }
         // Jain & Kapoor (2004) eq. 4: V = Rsh x - I Rs - a W(theta), ln theta = ln(Rsh I0/a) + Rsh x/a.
         double rsh = 1.0 / gsh;
-        double lnL = Math.Log(rsh * i0 / a);
+        double lnL = PortableMath.Log(rsh * i0 / a);
         double z = lnL + rsh * x / a;
         double w = LambertW.WrightOmega(z);
         if (z > 1.0)
         {
             // Rsh x - a W = a (z - lnL) - a (z - ln W) = a (ln W - lnL).
-            return a * (Math.Log(w) - lnL) - currentA * rs;
+            return a * (PortableMath.Log(w) - lnL) - currentA * rs;
         }
         return rsh * x - currentA * rs - a * w;
     }
@@ -81,7 +81,7 @@ public static class SingleDiodeModel
         double vd = voltageV + currentA * p.SeriesResistanceOhm;
         // I0 exp(vd/a) taken from the equation itself: IL + I0 - I - vd Gsh. It cannot overflow.
         double diodeTerm = p.PhotocurrentA + p.SaturationCurrentA - currentA - vd * p.ShuntConductanceS;
-        if (diodeTerm < p.SaturationCurrentA * 1e-300) diodeTerm = p.SaturationCurrentA * Math.Exp(Math.Max(vd / p.ModifiedIdealityV, -700));
+        if (diodeTerm < p.SaturationCurrentA * 1e-300) diodeTerm = p.SaturationCurrentA * PortableMath.Exp(Math.Max(vd / p.ModifiedIdealityV, -700));
         double g = diodeTerm / p.ModifiedIdealityV + p.ShuntConductanceS;
         return -g / (1.0 + p.SeriesResistanceOhm * g);
     }

@@ -1,5 +1,6 @@
 using System.Runtime.CompilerServices;
 using System.Runtime.InteropServices;
+using MpptArena.Numerics;
 
 namespace MpptArena.Sensing;
 
@@ -64,7 +65,7 @@ public sealed class DeterministicRandom
             if (layer == 0) return WithSign(Tail(), signBit);
             // The wedge between the rectangle's corner and the curve: accept if a uniform height falls under f(z).
             double fInner = Ziggurat.F[layer + 1], fOuter = Ziggurat.F[layer];
-            if (fOuter + NextDouble() * (fInner - fOuter) < Math.Exp(-0.5 * z * z)) return WithSign(z, signBit);
+            if (fOuter + NextDouble() * (fInner - fOuter) < PortableMath.Exp(-0.5 * z * z)) return WithSign(z, signBit);
         }
     }
 
@@ -77,8 +78,8 @@ public sealed class DeterministicRandom
         double r = Ziggurat.TailStart, a, b;
         do
         {
-            a = -Math.Log(1.0 - NextDouble()) / r;
-            b = -Math.Log(1.0 - NextDouble());
+            a = -PortableMath.Log(1.0 - NextDouble()) / r;
+            b = -PortableMath.Log(1.0 - NextDouble());
         } while (b + b < a * a);
         return r + a;
     }
@@ -94,18 +95,18 @@ public sealed class DeterministicRandom
         public const double TailStart = 3.442619855899;
         public const double LayerArea = 9.91256303526217e-3;
         public static readonly double[] X = BuildEdges();
-        public static readonly double[] F = X.Select(x => Math.Exp(-0.5 * x * x)).ToArray();
+        public static readonly double[] F = X.Select(x => PortableMath.Exp(-0.5 * x * x)).ToArray();
 
         private static double[] BuildEdges()
         {
             var x = new double[Layers + 1];
-            double r = TailStart, f = Math.Exp(-0.5 * r * r);
+            double r = TailStart, f = PortableMath.Exp(-0.5 * r * r);
             x[0] = LayerArea / f;
             x[1] = r;
             for (int i = 1; i < Layers - 1; i++)
             {
                 f += LayerArea / x[i];
-                x[i + 1] = Math.Sqrt(-2.0 * Math.Log(f));
+                x[i + 1] = Math.Sqrt(-2.0 * PortableMath.Log(f));
             }
             x[Layers] = 0.0;
             return x;

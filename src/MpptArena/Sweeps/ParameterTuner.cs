@@ -1,5 +1,6 @@
 using MathNet.Numerics.LinearAlgebra;
 using MathNet.Numerics.Optimization;
+using MpptArena.Numerics;
 
 namespace MpptArena.Sweeps;
 
@@ -35,7 +36,7 @@ public static class ParameterTuner
         {
             var x = ToValues(u);
             double penalty = 0;
-            for (int k = 0; k < n; k++) penalty += Math.Pow(Math.Max(0, -u[k]) + Math.Max(0, u[k] - 1), 2);
+            for (int k = 0; k < n; k++) { double outside = Math.Max(0, -u[k]) + Math.Max(0, u[k] - 1); penalty += outside * outside; }
             string key = string.Join(",", x.Select(v => v.ToString("R", System.Globalization.CultureInfo.InvariantCulture)));
             if (!cache.TryGetValue(key, out double f))
             {

@@ -1,3 +1,5 @@
+using MpptArena.Numerics;
+
 namespace MpptArena.Sweeps;
 
 /// <summary>The values one swept quantity takes: a list, a linear range with a step, or a logarithmic range.</summary>
@@ -9,5 +11,5 @@ namespace MpptArena.Sweeps;
 public sealed record SweepAxis(string Name, IReadOnlyList<double> Values, double Min, double Max, bool Logarithmic)
 {
     /// <summary>The value at a unit-interval coordinate u in [0, 1] (for sampling).</summary>
-    public double At(double u) => Logarithmic ? Math.Exp(Math.Log(Min) + u * (Math.Log(Max) - Math.Log(Min))) : Min + u * (Max - Min);
+    public double At(double u) => Logarithmic ? PortableMath.Exp(PortableMath.Log(Min) + u * (PortableMath.Log(Max) - PortableMath.Log(Min))) : Min + u * (Max - Min);
 }

@@ -1,3 +1,4 @@
+using MpptArena.Numerics;
 using MpptArena.Scenarios;
 using MpptArena.Trackers;
 using MpptArena.Trackers.Native;
@@ -176,7 +177,7 @@ public static class SweepLoader
                     double from = Check(m.Node("log_from")!, m.Positive("log_from")), to = Check(m.Node("log_to") ?? node, m.Positive("log_to"));
                     int count = m.Integer("count", null, 2, 100_000);
                     if (to <= from) throw m.Error(m.Node("log_to")!, "'log_to' must be above 'log_from'", "log_to");
-                    var values = Enumerable.Range(0, count).Select(k => Math.Round(from * Math.Pow(to / from, (double)k / (count - 1)), 12)).ToList();
+                    var values = Enumerable.Range(0, count).Select(k => Math.Round(from * PortableMath.Exp(PortableMath.Log(to / from) * k / (count - 1)), 12)).ToList();
                     return new SweepAxis(name, values, from, to, true);
                 }
                 throw m.Error(node, $"'{name}' needs a number, a list, {{from, to, step}} or {{log_from, log_to, count}}", name);
