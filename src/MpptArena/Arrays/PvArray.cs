@@ -34,8 +34,7 @@ public sealed record PvArray(ModuleModel Module, ArrayLayout Layout)
             throw new ArgumentException($"conditions hold {conditions.IrradianceWm2.Length} substrings, the layout has {Layout.SubstringCount}");
         }
         var strings = new List<StringModel>();
-        var stringKeys = new List<(double G, double T)[]>();
-        var stringSubstringCounts = new List<int[]>();
+        var stringMakeUps = new List<StringMakeUp>();
         var stringCounts = new List<int>();
         int perString = Layout.SubstringsPerString;
         var keys = new (double G, double T)[perString];
@@ -58,7 +57,8 @@ public sealed record PvArray(ModuleModel Module, ArrayLayout Layout)
                 if (k == 0 || keys[k] != keys[k - 1]) distinctKeys[++d] = keys[k];
                 counts[d]++;
             }
-            int existing = IndexOfString(stringKeys, stringSubstringCounts, distinctKeys, counts);
+            var makeUp = new StringMakeUp(distinctKeys, counts);
+            int existing = stringMakeUps.FindIndex(makeUp.SameAs);
             if (existing >= 0)
             {
                 stringCounts[existing]++;
@@ -76,20 +76,16 @@ public sealed record PvArray(ModuleModel Module, ArrayLayout Layout)
             strings.Add(blocking is null
                 ? new StringModel(distinct, counts)
                 : new StringModel(distinct, counts, blocking.SaturationCurrentA, blocking.IdealityVoltageV(meanT)));
-            stringKeys.Add(distinctKeys);
-            stringSubstringCounts.Add(counts);
+            stringMakeUps.Add(makeUp);
             stringCounts.Add(1);
         }
         return new ExactArrayCurve(strings.ToArray(), stringCounts.ToArray());
     }
 
-    private static int IndexOfString(List<(double G, double T)[]> keys, List<int[]> counts, (double G, double T)[] candidateKeys, int[] candidateCounts)
+    /// <summary>A string's distinct substring conditions in ascending order and how many substrings share each.</summary>
+    private sealed record StringMakeUp((double G, double T)[] Conditions, int[] Counts)
     {
-        for (int j = 0; j < keys.Count; j++)
-        {
-            if (keys[j].AsSpan().SequenceEqual(candidateKeys) && counts[j].AsSpan().SequenceEqual(candidateCounts)) return j;
-        }
-        return -1;
+        public bool SameAs(StringMakeUp other) => Conditions.AsSpan().SequenceEqual(other.Conditions) && Counts.AsSpan().SequenceEqual(other.Counts);
     }
 
     /// <summary>Insertion sort by irradiance, then temperature (a string's few distinct values mostly come in runs, so this is close to linear).</summary>
