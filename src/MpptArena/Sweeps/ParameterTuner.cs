@@ -1,6 +1,5 @@
 using MathNet.Numerics.LinearAlgebra;
 using MathNet.Numerics.Optimization;
-using MpptArena.Numerics;
 
 namespace MpptArena.Sweeps;
 
