@@ -7,7 +7,9 @@ namespace MpptArena.Benchmarks;
 /// <summary>
 /// Array current at a voltage for the 2 x 10 x 3 array with every substring different: the
 /// straightforward nested bisection (reference), the library's exact nested solve, and the prepared
-/// curve; plus the cost of preparing the curve after a change of conditions. 16 voltages per operation.
+/// curve; plus the cost of preparing the curve after a change of conditions, and of a new curve under a
+/// uniform sky (what every step of a ramp costs when it reaches conditions not seen before). 16 voltages
+/// per operation.
 /// </summary>
 [MemoryDiagnoser]
 public class ArrayCurveBenchmarks
@@ -16,7 +18,7 @@ public class ArrayCurveBenchmarks
     private ExactArrayCurve _exact = null!;
     private PreparedArrayCurve _prepared = null!;
     private PvArray _array = null!;
-    private ArrayConditions _conditions = null!;
+    private ArrayConditions _conditions = null!, _uniform = null!;
     private readonly double[] _voltages = new double[16];
 
     [GlobalSetup]
@@ -24,6 +26,7 @@ public class ArrayCurveBenchmarks
     {
         _array = BenchmarkArrays.TwoByTen();
         _conditions = BenchmarkArrays.AllDifferent(_array);
+        _uniform = _array.UniformConditions(450, 34);
         _reference = new ReferenceArray(_array, _conditions);
         _exact = _array.Solve(_conditions);
         _prepared = new PreparedArrayCurve(_exact);
@@ -59,4 +62,7 @@ public class ArrayCurveBenchmarks
 
     [Benchmark(Description = "prepare + find every MPP")]
     public PowerPeaks PrepareAndSearch() => MppSearch.FindPeaks(new PreparedArrayCurve(_array.Solve(_conditions)));
+
+    [Benchmark(Description = "uniform sky (a ramp's new curve): prepare + MPP by the coarse scan")]
+    public PowerPeaks PrepareUniformAndSearch() => MppSearch.FindPeaks(new PreparedArrayCurve(_array.Solve(_uniform)), 64);
 }
