@@ -39,13 +39,8 @@ public sealed class PiecewiseLinearProfile
     /// <summary>Value at time <paramref name="timeS"/> [s]; at a step the later value.</summary>
     public double ValueAt(double timeS)
     {
-        var times = _timeS;
-        if (timeS < times[0]) return _value[0];
-        if (timeS >= times[^1]) return _value[^1];
-        // times[j] <= timeS < times[j + 1]: the last breakpoint at or before timeS, so at a step the later value.
-        int j = FirstAfter(times, timeS) - 1;
-        double t0 = times[j], t1 = times[j + 1];
-        return _value[j] + (_value[j + 1] - _value[j]) * (timeS - t0) / (t1 - t0);
+        int noHint = -1; // searches the whole profile
+        return ValueAt(timeS, ref noHint);
     }
 
     /// <summary>
@@ -58,7 +53,8 @@ public sealed class PiecewiseLinearProfile
         if (timeS < times[0]) return _value[0];
         if (timeS >= times[^1]) return _value[^1];
         int j = segment;
-        // The segment holds timeS when times[j] <= timeS < times[j + 1]; one such j exists (the same ValueAt finds).
+        // The segment holds timeS when times[j] <= timeS < times[j + 1]: the last breakpoint at or before
+        // timeS, so at a step the later value. Exactly one such j exists.
         if ((uint)j >= (uint)(times.Length - 1) || times[j] > timeS) j = FirstAfter(times, timeS) - 1;
         else
         {
@@ -74,8 +70,8 @@ public sealed class PiecewiseLinearProfile
     /// <summary>True if a breakpoint (a step or a change of slope) lies in [from, to) [s]. Allocation-free.</summary>
     public bool HasBreakpointIn(double fromS, double toS)
     {
-        int j = FirstAtOrAfter(_timeS, fromS);
-        return j < _timeS.Length && _timeS[j] < toS;
+        int noHint = -1; // searches the whole profile
+        return HasBreakpointIn(fromS, toS, ref noHint);
     }
 
     /// <summary>

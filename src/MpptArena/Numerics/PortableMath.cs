@@ -157,13 +157,7 @@ public static class PortableMath
         if (hx <= 0x3fe921fb) return KernelSin(x, 0.0, false); // |x| <= pi/4
         if (hx >= 0x413921fb) return Math.Sin(x);
         int n = ReduceByHalfPi(x, out double y0, out double y1);
-        return (n & 3) switch
-        {
-            0 => KernelSin(y0, y1, true),
-            1 => KernelCos(y0, y1),
-            2 => -KernelSin(y0, y1, true),
-            _ => -KernelCos(y0, y1),
-        };
+        return SinOfQuadrant(n, y0, y1);
     }
 
     /// <summary>cos x for |x| up to 2^20 pi/2 (1.6e6 rad); beyond that the platform's function.</summary>
@@ -173,14 +167,17 @@ public static class PortableMath
         if (hx <= 0x3fe921fb) return KernelCos(x, 0.0); // |x| <= pi/4
         if (hx >= 0x413921fb) return Math.Cos(x);
         int n = ReduceByHalfPi(x, out double y0, out double y1);
-        return (n & 3) switch
-        {
-            0 => KernelCos(y0, y1),
-            1 => -KernelSin(y0, y1, true),
-            2 => -KernelCos(y0, y1),
-            _ => KernelSin(y0, y1, true),
-        };
+        return SinOfQuadrant(n + 1, y0, y1); // cos x = sin(x + pi/2)
     }
+
+    /// <summary>sin(n pi/2 + y0 + y1) for |y0 + y1| &lt;= pi/4.</summary>
+    private static double SinOfQuadrant(int n, double y0, double y1) => (n & 3) switch
+    {
+        0 => KernelSin(y0, y1, true),
+        1 => KernelCos(y0, y1),
+        2 => -KernelSin(y0, y1, true),
+        _ => -KernelCos(y0, y1),
+    };
 
     /// <summary>
     /// x = n pi/2 + (y0 + y1) with |y0 + y1| &lt;= pi/4, by Cody and Waite's reduction with pi/2 in up to three

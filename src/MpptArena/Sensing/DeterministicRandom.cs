@@ -47,7 +47,10 @@ public sealed class DeterministicRandom
     }
 
     /// <summary>Uniform in [0, 1) with 53 random bits.</summary>
-    public double NextDouble() => (long)(NextUInt64() >> 11) * (1.0 / 9007199254740992.0);
+    public double NextDouble() => UnitFromTopBits(NextUInt64());
+
+    /// <summary>The top 53 bits of <paramref name="bits"/> as a uniform value in [0, 1) (through long: the signed conversion is the fast one).</summary>
+    private static double UnitFromTopBits(ulong bits) => (long)(bits >> 11) * (1.0 / 9007199254740992.0);
 
     /// <summary>Standard normal deviate.</summary>
     public double NextGaussian()
@@ -59,7 +62,7 @@ public sealed class DeterministicRandom
             int layer = (int)bits & (Ziggurat.Layers - 1);
             // Bit 7 is the sign, moved to the sign bit of the result (no branch on a coin toss).
             long signBit = (long)(bits & Ziggurat.Layers) << 56;
-            double z = (long)(bits >> 11) * (1.0 / 9007199254740992.0) * Unsafe.Add(ref x, layer);
+            double z = UnitFromTopBits(bits) * Unsafe.Add(ref x, layer);
             // Inside the part of the layer's rectangle that lies wholly under the curve: accept (the common case).
             if (z < Unsafe.Add(ref x, layer + 1)) return WithSign(z, signBit);
             if (layer == 0) return WithSign(Tail(), signBit);
