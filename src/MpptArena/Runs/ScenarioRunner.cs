@@ -34,7 +34,28 @@ public sealed class ScenarioRunner
     /// <param name="sinkFor">Series sink per tracker, or null for none.</param>
     /// <param name="progress">Receives the finished fraction [0, 1], or null.</param>
     /// <param name="cancel">Stops the run between steps.</param>
-    public RunResult Run(Scenario scenario, Func<TrackerSpec, ISeriesSink?>? sinkFor = null, IProgress<double>? progress = null, CancellationToken cancel = default)
+    /// <param name="logFor">Where each tracker's own output goes (its host's standard error), or null to drop it.</param>
+    public RunResult Run(Scenario scenario, Func<TrackerSpec, ISeriesSink?>? sinkFor = null, IProgress<double>? progress = null, CancellationToken cancel = default,
+        Func<TrackerSpec, TextWriter?>? logFor = null)
+    {
+        var lanes = new List<TrackerLane>();
+        try
+        {
+            return Run(scenario, sinkFor, progress, cancel, logFor, lanes);
+        }
+        finally
+        {
+            // Hosts go back to the pool (or are ended) and files are closed however the run ends.
+            foreach (var lane in lanes)
+            {
+                lane.Release();
+                lane.Sink?.Dispose();
+            }
+        }
+    }
+
+    private RunResult Run(Scenario scenario, Func<TrackerSpec, ISeriesSink?>? sinkFor, IProgress<double>? progress, CancellationToken cancel,
+        Func<TrackerSpec, TextWriter?>? logFor, List<TrackerLane> lanes)
     {
         var wall = Stopwatch.StartNew();
         var sim = scenario.Simulation;
@@ -53,23 +74,13 @@ public sealed class ScenarioRunner
         cache.Update(conditions);
 
         double maxConductanceS = MaxConductanceS(scenario);
-        var lanes = scenario.Trackers.Select((spec, index) => CreateLane(scenario, spec, index, h, sinkFor)).ToList();
+        foreach (var spec in scenario.Trackers) lanes.Add(CreateLane(scenario, spec, h, sinkFor, logFor));
         foreach (var lane in lanes)
         {
             lane.FrontEnd.SetStabilityBound(maxConductanceS, StabilityLimit);
             lane.FrontEnd.Reset(cache.Curve.OpenCircuitVoltageV);
             lane.Scorer.MarkEvent(0.0, TrackerScorer.StartupLabel);
-            try
-            {
-                double first = lane.Tracker.Reset(lane.Context);
-                string? bad = lane.Validate(first);
-                if (bad is not null) lane.Failure = new TrackerFailure(0, bad);
-                else lane.Command = first;
-            }
-            catch (Exception ex)
-            {
-                lane.Failure = new TrackerFailure(0, $"threw {ex.GetType().Name} in Reset: {ex.Message}");
-            }
+            lane.Start();
             lane.NextSeriesS = sim.SeriesIntervalS;
         }
 
@@ -139,8 +150,8 @@ public sealed class ScenarioRunner
         double end = totalSteps * h;
         var results = lanes.Select(lane =>
         {
+            lane.Release();
             lane.Sink?.Dispose();
-            (lane.Tracker as IDisposable)?.Dispose();
             var scores = lane.Scorer.Finish(end);
             double meanNs = lane.TimedCalls > 0 ? lane.ComputeTicks * 1e9 / Stopwatch.Frequency / lane.TimedCalls : 0;
             return new TrackerResult(lane.Spec.Name, lane.Spec.Descriptor.Kind, lane.Spec.SamplePeriodS, lane.Spec.Settings.All,
@@ -179,10 +190,15 @@ public sealed class ScenarioRunner
         _ => throw new ArgumentOutOfRangeException(nameof(c)),
     };
 
-    private static TrackerLane CreateLane(Scenario scenario, TrackerSpec spec, int index, double h, Func<TrackerSpec, ISeriesSink?>? sinkFor)
+    private static TrackerLane CreateLane(Scenario scenario, TrackerSpec spec, double h, Func<TrackerSpec, ISeriesSink?>? sinkFor, Func<TrackerSpec, TextWriter?>? logFor)
     {
         var frontEnd = CreateFrontEnd(scenario.Converter);
         var tracker = spec.Descriptor.Create(spec.Settings);
+        if (tracker is Trackers.Isolation.IContainedTracker contained)
+        {
+            contained.Limits = spec.Limits;
+            contained.Log = logFor?.Invoke(spec);
+        }
         var kind = tracker.CommandKind;
         if (!frontEnd.Accepts(kind))
         {
@@ -209,6 +225,7 @@ public sealed class ScenarioRunner
             Context = context,
             StepsPerSample = stepsPerSample,
             Sink = sinkFor?.Invoke(spec),
+            Watch = spec.Descriptor.IsUserCodeInProcess ? new Trackers.Isolation.InProcessCallWatch(spec.Name, spec.Limits.CallS) : null,
         };
     }
 

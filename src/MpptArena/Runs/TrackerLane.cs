@@ -3,6 +3,7 @@ using MpptArena.Plant;
 using MpptArena.Scoring;
 using MpptArena.Sensing;
 using MpptArena.Trackers;
+using MpptArena.Trackers.Isolation;
 
 namespace MpptArena.Runs;
 
@@ -17,6 +18,13 @@ internal sealed class TrackerLane
     public required TrackerContext Context { get; init; }
     public required int StepsPerSample { get; init; }
     public ISeriesSink? Sink { get; init; }
+
+    /// <summary>Watches a user's in-process calls (null for built-ins and isolated trackers).</summary>
+    public InProcessCallWatch? Watch { get; init; }
+
+    /// <summary>How many calls the failure record keeps.</summary>
+    public const int RecentCalls = 8;
+    private readonly TrackerExchange[] _recent = new TrackerExchange[RecentCalls];
 
     public double Command;
     public TrackerFailure? Failure;
@@ -41,19 +49,52 @@ internal sealed class TrackerLane
         return $"returned {command:G6}, outside the converter's range [{Context.MinCommand:G6}, {Context.MaxCommand:G6}]";
     }
 
+    /// <summary>Calls Reset, turning whatever goes wrong into this tracker's failure.</summary>
+    public void Start()
+    {
+        try
+        {
+            Watch?.Begin();
+            double first = Tracker.Reset(Context);
+            Watch?.End();
+            string? bad = Validate(first);
+            if (bad is not null) Fail(new TrackerFailure(0, bad + " from Reset"));
+            else Command = first;
+        }
+        catch (TrackerFault fault)
+        {
+            Fail(new TrackerFailure(0, fault.Reason) { Details = fault.Details });
+        }
+        catch (Exception ex)
+        {
+            Fail(new TrackerFailure(0, $"threw {ex.GetType().Name} in Reset: {ex.Message}") { Details = ex.ToString() });
+        }
+    }
+
     /// <summary>Calls the tracker, timing it and isolating any exception.</summary>
     public void Sample(in TrackerMeasurement m)
     {
         double next;
         bool timed = (Calls & (TimingStride - 1)) == 0;
         long start = timed ? Stopwatch.GetTimestamp() : 0;
+        ref var slot = ref _recent[Calls % RecentCalls];
+        slot = new TrackerExchange(m.TimeS, m.VoltageV, m.CurrentA, double.NaN);
         try
         {
+            Watch?.Begin();
             next = Tracker.Step(m);
+            Watch?.End();
+        }
+        catch (TrackerFault fault)
+        {
+            Calls++;
+            Fail(new TrackerFailure(m.TimeS, fault.Reason) { Details = fault.Details });
+            return;
         }
         catch (Exception ex)
         {
-            Failure = new TrackerFailure(m.TimeS, $"threw {ex.GetType().Name}: {ex.Message}");
+            Calls++;
+            Fail(new TrackerFailure(m.TimeS, $"threw {ex.GetType().Name}: {ex.Message} (call {Calls})") { Details = ex.ToString() });
             return;
         }
         if (timed)
@@ -62,12 +103,39 @@ internal sealed class TrackerLane
             TimedCalls++;
         }
         Calls++;
+        slot = slot with { Command = next };
+        if (Watch is not null && Watch.CallTicks > Spec.Limits.RunS * Stopwatch.Frequency)
+        {
+            Fail(new TrackerFailure(m.TimeS, FormattableString.Invariant($"used more than its run limit of {Spec.Limits.RunS:0.###} s in calls (call {Calls})")));
+            return;
+        }
         string? bad = Validate(next);
         if (bad is not null)
         {
-            Failure = new TrackerFailure(m.TimeS, bad);
+            Fail(new TrackerFailure(m.TimeS, $"{bad} (call {Calls})"));
             return;
         }
         Command = next;
     }
+
+    /// <summary>Records the failure with the last calls and releases the tracker (its host goes at once).</summary>
+    public void Fail(TrackerFailure failure)
+    {
+        long n = Math.Min(Calls, RecentCalls);
+        var recent = new List<TrackerExchange>((int)n);
+        for (long k = Calls - n; k < Calls; k++) recent.Add(_recent[k % RecentCalls]);
+        Failure = failure with { Recent = recent };
+        Release();
+    }
+
+    /// <summary>Disposes the tracker and its watch, once.</summary>
+    public void Release()
+    {
+        if (_released) return;
+        _released = true;
+        Watch?.Dispose();
+        (Tracker as IDisposable)?.Dispose();
+    }
+
+    private bool _released;
 }

@@ -294,11 +294,9 @@ public static class ScenarioLoader
         int index = 0;
         foreach (var item in seq.Children)
         {
-            var t = new YamlMap(item, root.File, $"scenario.trackers[{index++}]", ["name", "type", "period_ms", "parameters", "library"]);
+            var t = new YamlMap(item, root.File, $"scenario.trackers[{index++}]", ["name", "period_ms", "parameters", .. TrackerEntryReader.Keys]);
+            var (descriptor, limits) = TrackerEntryReader.Read(t, baseDirectory, registry);
             string kind = t.Text("type");
-            var descriptor = kind == "native" ? NativeDescriptor(t, baseDirectory)
-                : registry.Find(kind) ?? throw t.Error(t.Node("type")!, $"unknown tracker type '{kind}'; known types: native (with 'library'), {string.Join(", ", registry.All.Select(d => d.Kind))}", "type");
-            if (kind != "native" && t.Has("library")) throw t.Error(t.Node("library")!, "'library' goes with 'type: native' (a C tracker in a shared library)", "library");
             string name = t.Text("name", kind);
             if (specs.Any(s => s.Name == name)) throw t.Error(t.Node("name") ?? item, $"tracker name '{name}' is used twice; names must be unique", "name");
             double periodS = t.Number("period_ms", 10, 0.001, 3_600_000) * 1e-3;
@@ -316,23 +314,9 @@ public static class ScenarioLoader
                 }
             }
             var settings = new TrackerSettings(descriptor.Parameters, given);
-            specs.Add(new TrackerSpec(name, descriptor, settings, periodS));
+            specs.Add(new TrackerSpec(name, descriptor, settings, periodS) { Limits = limits });
         }
         return specs;
-    }
-
-    private static TrackerDescriptor NativeDescriptor(YamlMap t, string baseDirectory)
-    {
-        string rel = t.Text("library");
-        string full = Path.IsPathRooted(rel) ? rel : Path.Combine(baseDirectory, rel);
-        try
-        {
-            return Trackers.Native.NativeTrackerLibrary.Load(full).Descriptor;
-        }
-        catch (ArenaInputException ex)
-        {
-            throw new ArenaInputException(ex.Reason, "library", t.Where(t.Node("library")!));
-        }
     }
 
     private static ScoringSettings ReadScoring(YamlMap? s, List<ScoringWindow> windows, SimulationSettings sim)

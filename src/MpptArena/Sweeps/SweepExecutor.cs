@@ -15,7 +15,7 @@ public static class SweepExecutor
     {
         var tracker = sweep.Trackers.First(t => t.Name == c.TrackerName);
         var settings = new TrackerSettings(tracker.Descriptor.Parameters, c.Parameters.ToDictionary(kv => kv.Key, kv => kv.Value));
-        var spec = new TrackerSpec(c.TrackerName, tracker.Descriptor, settings, c.PeriodMs * 1e-3);
+        var spec = new TrackerSpec(c.TrackerName, tracker.Descriptor, settings, c.PeriodMs * 1e-3) { Limits = tracker.Limits };
         return sweep.Scenarios[c.ScenarioIndex] with { Trackers = [spec] };
     }
 

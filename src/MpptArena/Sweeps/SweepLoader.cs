@@ -1,7 +1,6 @@
 using MpptArena.Numerics;
 using MpptArena.Scenarios;
 using MpptArena.Trackers;
-using MpptArena.Trackers.Native;
 using YamlDotNet.RepresentationModel;
 
 namespace MpptArena.Sweeps;
@@ -96,25 +95,9 @@ public static class SweepLoader
         int index = 0;
         foreach (var item in seq.Children)
         {
-            var t = new YamlMap(item, root.File, $"sweep.trackers[{index++}]", ["name", "type", "period_ms", "parameters", "library"]);
+            var t = new YamlMap(item, root.File, $"sweep.trackers[{index++}]", ["name", "period_ms", "parameters", .. TrackerEntryReader.Keys]);
+            var (descriptor, limits) = TrackerEntryReader.Read(t, dir, registry);
             string kind = t.Text("type");
-            TrackerDescriptor descriptor;
-            if (kind == "native")
-            {
-                string rel = t.Text("library");
-                try
-                {
-                    descriptor = NativeTrackerLibrary.Load(Path.IsPathRooted(rel) ? rel : Path.Combine(dir, rel)).Descriptor;
-                }
-                catch (ArenaInputException ex)
-                {
-                    throw new ArenaInputException(ex.Reason, "library", t.Where(t.Node("library")!));
-                }
-            }
-            else
-            {
-                descriptor = registry.Find(kind) ?? throw t.Error(t.Node("type")!, $"unknown tracker type '{kind}'; known types: native, {string.Join(", ", registry.All.Select(d => d.Kind))}", "type");
-            }
             string name = t.Text("name", kind);
             if (list.Any(x => x.Name == name)) throw t.Error(t.Node("name") ?? item, $"tracker name '{name}' is used twice", "name");
             var axes = new List<SweepAxis>();
@@ -136,7 +119,7 @@ public static class SweepLoader
                     else axes.Add(axis);
                 }
             }
-            list.Add(new SweepTracker(name, descriptor, fixedValues, axes, period));
+            list.Add(new SweepTracker(name, descriptor, fixedValues, axes, period) { Limits = limits });
         }
         if (list.Count == 0) throw root.Error(seq, "'trackers' is empty", "trackers");
         return list;

@@ -8,4 +8,8 @@ namespace MpptArena.Sweeps;
 /// <param name="Fixed">Parameter values that do not vary.</param>
 /// <param name="Axes">Swept quantities (parameters and optionally "period_ms").</param>
 /// <param name="PeriodMs">Sample period when it is not swept [ms].</param>
-public sealed record SweepTracker(string Name, TrackerDescriptor Descriptor, IReadOnlyDictionary<string, double> Fixed, IReadOnlyList<SweepAxis> Axes, double PeriodMs);
+public sealed record SweepTracker(string Name, TrackerDescriptor Descriptor, IReadOnlyDictionary<string, double> Fixed, IReadOnlyList<SweepAxis> Axes, double PeriodMs)
+{
+    /// <summary>Budgets of the tracker's calls and host.</summary>
+    public Trackers.Isolation.TrackerLimits Limits { get; init; } = Trackers.Isolation.TrackerLimits.Default;
+}

@@ -1,3 +1,5 @@
+using MpptArena.Trackers.Isolation;
+
 namespace MpptArena.Trackers;
 
 /// <summary>A kind of tracker the arena can build: its name, what it is, where it is published, its parameters and its factory.</summary>
@@ -11,4 +13,17 @@ public sealed record TrackerDescriptor(
     string Summary,
     string Source,
     IReadOnlyList<TrackerParameter> Parameters,
-    Func<TrackerSettings, IMpptTracker> Create);
+    Func<TrackerSettings, IMpptTracker> Create)
+{
+    /// <summary>Where the code comes from.</summary>
+    public TrackerOrigin Origin { get; init; } = TrackerOrigin.BuiltIn;
+
+    /// <summary>The plug-in assembly or C library the kind comes from, or null.</summary>
+    public string? OriginPath { get; init; }
+
+    /// <summary>Where its instances run.</summary>
+    public IsolationMode Isolation { get; init; } = IsolationMode.InProcess;
+
+    /// <summary>True for a user's code that runs inside the arena: its calls are watched, since they cannot be stopped.</summary>
+    public bool IsUserCodeInProcess => Origin != TrackerOrigin.BuiltIn && Isolation == IsolationMode.InProcess;
+}

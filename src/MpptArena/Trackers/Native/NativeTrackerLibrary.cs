@@ -16,6 +16,8 @@ public sealed unsafe class NativeTrackerLibrary
     internal delegate* unmanaged<IntPtr, NativeAbi.Measurement*, double> Step;
     internal delegate* unmanaged<IntPtr, void> Destroy;
 
+    private IntPtr _handle;
+
     private NativeTrackerLibrary(string path, TrackerCommandKind kind, IReadOnlyList<TrackerParameter> parameters)
     {
         Path = path;
@@ -33,7 +35,11 @@ public sealed unsafe class NativeTrackerLibrary
     public IReadOnlyList<TrackerParameter> Parameters { get; }
 
     /// <summary>A descriptor that builds trackers from this library.</summary>
-    public TrackerDescriptor Descriptor => new("native", $"C tracker from {System.IO.Path.GetFileName(Path)}", Path, Parameters, s => new NativeTracker(this, s));
+    public TrackerDescriptor Descriptor => new("native", $"C tracker from {System.IO.Path.GetFileName(Path)}", Path, Parameters, s => new NativeTracker(this, s))
+    {
+        Origin = TrackerOrigin.Native,
+        OriginPath = Path,
+    };
 
     /// <summary>Loads and checks a library.</summary>
     /// <exception cref="ArenaInputException">Missing file, not loadable, a missing symbol, or another ABI version.</exception>
@@ -74,10 +80,19 @@ public sealed unsafe class NativeTrackerLibrary
         var parameters = ReadParameters(handle, path);
         return new NativeTrackerLibrary(full, kind, parameters)
         {
+            _handle = handle,
             Create = (delegate* unmanaged<IntPtr, int, NativeAbi.Context*, double*, IntPtr>)exports["mppt_arena_create"],
             Step = (delegate* unmanaged<IntPtr, NativeAbi.Measurement*, double>)exports["mppt_arena_step"],
             Destroy = (delegate* unmanaged<IntPtr, void>)exports["mppt_arena_destroy"],
         };
+    }
+
+    /// <summary>Unloads the library; no tracker of it may be used afterwards.</summary>
+    public void Free()
+    {
+        if (_handle == IntPtr.Zero) return;
+        NativeLibrary.Free(_handle);
+        _handle = IntPtr.Zero;
     }
 
     private static List<TrackerParameter> ReadParameters(IntPtr handle, string path)

@@ -23,7 +23,7 @@ public static class TrackerPluginLoader
         }
         catch (BadImageFormatException)
         {
-            throw new ArenaInputException($"tracker plug-in '{path}' is not a .NET assembly (for C firmware trackers use 'native_library' in the tracker's entry)", "plugin");
+            throw new ArenaInputException($"tracker plug-in '{path}' is not a .NET assembly (for C firmware trackers use 'type: native' with 'library' in the tracker's entry)", "plugin");
         }
         Type[] types;
         try
@@ -47,6 +47,26 @@ public static class TrackerPluginLoader
             throw new ArenaInputException($"tracker plug-in '{path}' holds no public class marked [TrackerKind(\"name\")] that implements IMpptTracker", "plugin");
         }
         return added;
+    }
+
+    /// <summary>
+    /// Loads <paramref name="path"/> afresh in a collectible context of its own and returns the descriptor of
+    /// <paramref name="kind"/>: every instance made this way starts with its own static fields. Unload the
+    /// context when the instance is done.
+    /// </summary>
+    public static (TrackerDescriptor Descriptor, AssemblyLoadContext Context) LoadFresh(string path, string kind)
+    {
+        string full = Path.GetFullPath(path);
+        if (!File.Exists(full)) throw new ArenaInputException($"tracker plug-in '{path}' not found", "plugin");
+        var context = new PluginLoadContext(full, collectible: true);
+        var assembly = context.LoadFromAssemblyPath(full);
+        foreach (var type in assembly.GetExportedTypes())
+        {
+            var attribute = type.GetCustomAttribute<TrackerKindAttribute>();
+            if (attribute?.Kind == kind) return (Describe(type, attribute, path), context);
+        }
+        context.Unload();
+        throw new ArenaInputException($"tracker plug-in '{path}' holds no tracker kind '{kind}'", "plugin");
     }
 
     /// <summary>A descriptor for a plug-in type, after checking its shape.</summary>
@@ -77,10 +97,14 @@ public static class TrackerPluginLoader
                 {
                     throw new ArenaInputException($"{name}: constructor threw {ex.InnerException.GetType().Name}: {ex.InnerException.Message}", "plugin");
                 }
-            });
+            })
+        {
+            Origin = TrackerOrigin.Plugin,
+            OriginPath = Path.GetFullPath(origin),
+        };
     }
 
-    private sealed class PluginLoadContext(string path) : AssemblyLoadContext(Path.GetFileNameWithoutExtension(path), isCollectible: false)
+    private sealed class PluginLoadContext(string path, bool collectible = false) : AssemblyLoadContext(Path.GetFileNameWithoutExtension(path), collectible)
     {
         private readonly AssemblyDependencyResolver _resolver = new(path);
 
