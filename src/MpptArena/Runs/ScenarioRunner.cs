@@ -194,10 +194,11 @@ public sealed class ScenarioRunner
     {
         var frontEnd = CreateFrontEnd(scenario.Converter);
         var tracker = spec.Descriptor.Create(spec.Settings);
+        var log = logFor?.Invoke(spec) is { } writer ? TextWriter.Synchronized(writer) : null;
         if (tracker is Trackers.Isolation.IContainedTracker contained)
         {
             contained.Limits = spec.Limits;
-            contained.Log = logFor?.Invoke(spec);
+            contained.Log = log;
         }
         var kind = tracker.CommandKind;
         if (!frontEnd.Accepts(kind))
@@ -225,6 +226,7 @@ public sealed class ScenarioRunner
             Context = context,
             StepsPerSample = stepsPerSample,
             Sink = sinkFor?.Invoke(spec),
+            Log = log,
             Watch = spec.Descriptor.IsUserCodeInProcess ? new Trackers.Isolation.InProcessCallWatch(spec.Name, spec.Limits.CallS) : null,
         };
     }

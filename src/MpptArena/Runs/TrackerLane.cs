@@ -22,6 +22,9 @@ internal sealed class TrackerLane
     /// <summary>Watches a user's in-process calls (null for built-ins and isolated trackers).</summary>
     public InProcessCallWatch? Watch { get; init; }
 
+    /// <summary>The tracker's log (synchronised), or null.</summary>
+    public TextWriter? Log { get; init; }
+
     /// <summary>How many calls the failure record keeps.</summary>
     public const int RecentCalls = 8;
     private readonly TrackerExchange[] _recent = new TrackerExchange[RecentCalls];
@@ -125,6 +128,12 @@ internal sealed class TrackerLane
         var recent = new List<TrackerExchange>((int)n);
         for (long k = Calls - n; k < Calls; k++) recent.Add(_recent[k % RecentCalls]);
         Failure = failure with { Recent = recent };
+        if (Log is not null)
+        {
+            Log.WriteLine($"mppt-arena: tracker '{Spec.Name}' stopped at t = {failure.TimeS.ToString("0.######", System.Globalization.CultureInfo.InvariantCulture)} s: {failure.Reason}");
+            if (failure.Details.Length > 0) Log.WriteLine(failure.Details);
+            Log.Flush();
+        }
         Release();
     }
 

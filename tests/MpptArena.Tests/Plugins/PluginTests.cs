@@ -4,7 +4,7 @@ namespace MpptArena.Tests.Plugins;
 
 public class PluginTests
 {
-    private static string SamplePlugin =>
+    internal static string SamplePlugin =>
         Path.Combine(RepoRoot.Path, "tests", "SamplePlugin", "bin",
             AppContext.BaseDirectory.Contains($"{Path.DirectorySeparatorChar}Release{Path.DirectorySeparatorChar}") ? "Release" : "Debug", "net10.0", "SamplePlugin.dll");
 
@@ -13,7 +13,7 @@ public class PluginTests
     {
         var registry = TrackerRegistry.WithBuiltIns();
         var kinds = TrackerPluginLoader.LoadInto(registry, SamplePlugin);
-        Assert.Equal(["sample_fraction"], kinds);
+        Assert.Equal(["sample_fraction", "sample_faulty"], kinds.Order().Reverse());
         var yaml = TestScenarios.Yaml(trackers: "- { name: mine, type: sample_fraction, period_ms: 10, parameters: { fraction: 0.8 } }")
                    + $"\nplugins: [ '{SamplePlugin}' ]\n";
         var result = TestScenarios.Run(yaml);
