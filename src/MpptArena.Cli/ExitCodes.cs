@@ -14,4 +14,10 @@ internal static class ExitCodes
 
     /// <summary>A fault of the tool itself.</summary>
     public const int InternalError = 3;
+
+    /// <summary>Interrupted by SIGINT (Ctrl+C): 128 + 2.</summary>
+    public const int Interrupted = 130;
+
+    /// <summary>Stopped by SIGTERM: 128 + 15.</summary>
+    public const int Terminated = 143;
 }

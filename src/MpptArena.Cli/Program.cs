@@ -1,3 +1,4 @@
+using MpptArena.Cli.Terminal;
 using MpptArena.Cli.Commands;
 
 namespace MpptArena.Cli;
@@ -18,14 +19,17 @@ internal static class Program
           sweep SWEEP.yaml         run a parameter sweep (with --shard K/N for one part of it)
           merge SHARD_DIR...       join sweep shards into one result
 
-        exit codes: 0 ok, 1 a gate failed (threshold or regression), 2 bad input, 3 internal error
+        exit codes: 0 ok (a complete result and every gate passed), 1 a gate failed (threshold, regression,
+          or a tracker that failed, however it failed), 2 bad input, 3 internal error,
+          130 interrupted by SIGINT, 143 stopped by SIGTERM
         """;
 
     public static int Main(string[] args)
     {
+        StandardOutput.Capture();
         if (args.Length == 0 || args[0] is "-h" or "--help" or "help")
         {
-            Console.WriteLine(Help);
+            StandardOutput.Out.WriteLine(Help);
             return args.Length == 0 ? ExitCodes.BadInput : ExitCodes.Ok;
         }
         string[] rest = args[1..];
@@ -45,21 +49,26 @@ internal static class Program
                 _ => throw new ArenaInputException($"unknown command '{args[0]}'; run 'mppt-arena --help' for the list", "command"),
             };
         }
+        catch (OperationCanceledException)
+        {
+            // The command that was interrupted has said what it kept; only the exit code is left to give.
+            return ExitCodes.Interrupted;
+        }
         catch (ArenaInputException ex)
         {
-            Console.Error.WriteLine($"error: {ex.Message}");
+            StandardOutput.Error.WriteLine($"error: {ex.Message}");
             return ExitCodes.BadInput;
         }
         catch (Exception ex) when (System.Environment.GetEnvironmentVariable("MPPT_ARENA_DEBUG") is null)
         {
-            Console.Error.WriteLine($"internal error: {ex.GetType().Name}: {ex.Message} (set MPPT_ARENA_DEBUG=1 for details, and please report it)");
+            StandardOutput.Error.WriteLine($"internal error: {ex.GetType().Name}: {ex.Message} (set MPPT_ARENA_DEBUG=1 for details, and please report it)");
             return ExitCodes.InternalError;
         }
     }
 
     private static int Version()
     {
-        Console.WriteLine(MpptArena.Reports.Summary.SummaryBuilder.ToolVersion);
+        StandardOutput.Out.WriteLine(MpptArena.Reports.Summary.SummaryBuilder.ToolVersion);
         return ExitCodes.Ok;
     }
 }

@@ -1,3 +1,4 @@
+using MpptArena.Cli.Terminal;
 using System.Globalization;
 using MpptArena.Reports.Comparison;
 using MpptArena.Reports.Exporters;
@@ -26,14 +27,14 @@ internal static class CompareCommand
         foreach (var ch in changes.Where(ch => a.Flag("--all") || ch.Verdict != ScoreVerdict.Unchanged))
         {
             string delta = ch.Delta is { } d ? $" ({(d >= 0 ? "+" : "")}{d.ToString("G4", c)}, allowed {ch.Allowance.ToString("G3", c)})" : "";
-            Console.WriteLine($"{ch.Verdict.ToString().ToLowerInvariant(),-10} {ch.Tracker}.{ch.Score}: {Num(ch.Baseline)} -> {Num(ch.Current)}{delta}");
+            StandardOutput.Out.WriteLine($"{ch.Verdict.ToString().ToLowerInvariant(),-10} {ch.Tracker}.{ch.Score}: {Num(ch.Baseline)} -> {Num(ch.Current)}{delta}");
         }
         int regressions = changes.Count(ch => ch.IsRegression);
         int improvements = changes.Count(ch => ch.Verdict == ScoreVerdict.Improved);
-        Console.WriteLine($"{current.Scenario.Name}: {regressions} regressed, {improvements} improved, {changes.Count(ch => ch.Verdict == ScoreVerdict.Unchanged)} within tolerance");
+        StandardOutput.Out.WriteLine($"{current.Scenario.Name}: {regressions} regressed, {improvements} improved, {changes.Count(ch => ch.Verdict == ScoreVerdict.Unchanged)} within tolerance");
         if (baseline.Scenario.PlantDigest != current.Scenario.PlantDigest || baseline.Scenario.Seed != current.Scenario.Seed)
         {
-            Console.WriteLine("note: the plant or the seed differ between the two summaries; scores are not strictly comparable");
+            StandardOutput.Out.WriteLine("note: the plant or the seed differ between the two summaries; scores are not strictly comparable");
         }
         if (a.Option("--junit") is { } junit)
         {

@@ -1,3 +1,4 @@
+using MpptArena.Cli.Terminal;
 using System.Globalization;
 using MpptArena.Arrays;
 using MpptArena.Reports.Exporters;
@@ -45,7 +46,7 @@ internal static class CurveCommand
                 k == peaks.GlobalIndex ? "[bold]global[/]" : "local");
         }
         AnsiConsole.Write(table);
-        Console.WriteLine($"results: {folder}");
+        StandardOutput.Out.WriteLine($"results: {folder}");
         return ExitCodes.Ok;
     }
 

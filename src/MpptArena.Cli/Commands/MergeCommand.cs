@@ -1,3 +1,4 @@
+using MpptArena.Cli.Terminal;
 using MpptArena.Reports.Sweeps;
 
 namespace MpptArena.Cli.Commands;
@@ -35,8 +36,8 @@ internal static class MergeCommand
         foreach (var r in cases.Values) SweepStore.Write(output, r);
         SweepStore.WriteManifest(output, first with { Shard = 1, ShardCount = 1, ShardCases = first.TotalCases });
         SweepReport.Write(output, cases.Values, first.Objective, first.HeatmapX, first.HeatmapY, !a.Flag("--no-plots"));
-        Console.WriteLine($"{first.Name}: merged {cases.Count} cases from {manifests.Count} shard folder(s)");
-        Console.WriteLine($"results: {output}");
+        StandardOutput.Out.WriteLine($"{first.Name}: merged {cases.Count} cases from {manifests.Count} shard folder(s)");
+        StandardOutput.Out.WriteLine($"results: {output}");
         return ExitCodes.Ok;
     }
 }

@@ -1,3 +1,4 @@
+using MpptArena.Cli.Terminal;
 using MpptArena.Cli.Scaffolding;
 
 namespace MpptArena.Cli.Commands;
@@ -12,8 +13,8 @@ internal static class NewTrackerCommand
         string name = a.Positional[0];
         string folder = a.Option("--out") ?? name;
         var files = TrackerScaffold.Write(name, folder);
-        foreach (string f in files) Console.WriteLine($"wrote {f}");
-        Console.WriteLine($"next: cd {folder} && dotnet test tests && dotnet build src -c Release && mppt-arena run scenario.yaml");
+        foreach (string f in files) StandardOutput.Out.WriteLine($"wrote {f}");
+        StandardOutput.Out.WriteLine($"next: cd {folder} && dotnet test tests && dotnet build src -c Release && mppt-arena run scenario.yaml");
         return ExitCodes.Ok;
     }
 }

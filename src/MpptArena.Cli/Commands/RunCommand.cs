@@ -12,11 +12,11 @@ namespace MpptArena.Cli.Commands;
 /// <summary>mppt-arena run SCENARIO.yaml: runs every tracker and writes a results folder.</summary>
 internal static class RunCommand
 {
-    public const string Usage = "mppt-arena run SCENARIO.yaml [--tracker NAME]... [--out DIR] [--seed N] [--full-series] [--no-plots] [--junit FILE] [--fail-below SCORE=VALUE]... [--fail-above SCORE=VALUE]... [--plugin ASSEMBLY.dll]...";
+    public const string Usage = "mppt-arena run SCENARIO.yaml [--tracker NAME]... [--out DIR] [--seed N] [--full-series] [--no-plots] [--junit FILE] [--fail-below SCORE=VALUE]... [--fail-above SCORE=VALUE]... [--plugin ASSEMBLY.dll]... [--call-limit-ms MS] [--run-limit-s S] [--memory-limit-mib MIB] [--debug]";
 
     public static int Execute(string[] args)
     {
-        var a = new ArgumentReader(args, "run", ["--tracker", "--out", "--seed", "--junit", "--fail-below", "--fail-above", "--plugin"], ["--full-series", "--no-plots", "--quiet"]);
+        var a = new ArgumentReader(args, "run", ["--tracker", "--out", "--seed", "--junit", "--fail-below", "--fail-above", "--plugin", "--call-limit-ms", "--run-limit-s", "--memory-limit-mib"], ["--full-series", "--no-plots", "--quiet", "--debug"]);
         a.RequirePositional(1, Usage);
         var registry = Plugins.Registry(a.Options("--plugin"));
         var scenario = ScenarioLoader.Load(a.Positional[0], registry);
@@ -29,16 +29,42 @@ internal static class RunCommand
         Directory.CreateDirectory(workDir);
         RunSummary summary;
         RunResult result;
+        using var interruption = new Interruption();
+        var logs = new TrackerLogs(Path.Combine(workDir, "logs"));
+        void OnOverrun(string tracker, double limitS)
+        {
+            // An in-process call that does not return cannot be stopped: end the run, never hang, never exit 0.
+            StandardOutput.Error.WriteLine($"error: tracker '{tracker}' runs in process and made no reply within {limitS:0.###} s; it cannot be stopped inside the arena, so the run ends here (run it with 'isolation: process' to have it stopped alone)");
+            TryDelete(workDir);
+            System.Environment.Exit(ExitCodes.GateFailed);
+        }
+        Trackers.Isolation.HostWatchdog.InProcessCallOverrun += OnOverrun;
         try
         {
             Func<TrackerSpec, ISeriesSink?> sinks = spec => new CsvSeriesSink(Path.Combine(workDir, ResultsWriter.SeriesFileName(spec.Name)));
-            result = Simulate(scenario, sinks, a.Flag("--quiet"));
+            using (logs.DivertConsole(scenario.Trackers.Any(t => t.Descriptor.IsUserCodeInProcess)))
+            {
+                result = Simulate(scenario, sinks, logs.For, a.Flag("--quiet"), interruption.Token);
+            }
+            logs.Dispose();
             summary = ResultsWriter.Write(workDir, result, plots: !a.Flag("--no-plots"));
+        }
+        catch (OperationCanceledException)
+        {
+            logs.Dispose();
+            TryDelete(workDir);
+            StandardOutput.Error.WriteLine($"interrupted by {interruption.SignalName}: the run stopped before its end and its partial output was removed; nothing was written to {finalDir}");
+            return interruption.ExitCode;
         }
         catch
         {
-            Directory.Delete(workDir, true);
+            logs.Dispose();
+            TryDelete(workDir);
             throw;
+        }
+        finally
+        {
+            Trackers.Isolation.HostWatchdog.InProcessCallOverrun -= OnOverrun;
         }
         if (Directory.Exists(finalDir)) Directory.Delete(finalDir, true);
         Directory.Move(workDir, finalDir);
@@ -46,14 +72,34 @@ internal static class RunCommand
         if (!a.Flag("--quiet")) RankingTable.Print(summary);
         var cases = gates.Check(summary);
         if (a.Option("--junit") is { } junit) JUnitWriter.Write(junit, cases);
-        Console.WriteLine($"results: {finalDir}");
+        StandardOutput.Out.WriteLine($"results: {finalDir}");
+        if (a.Flag("--debug"))
+        {
+            foreach (var t in result.Trackers.Where(t => t.Failure is { Details.Length: > 0 }))
+            {
+                StandardOutput.Error.WriteLine($"--- {t.Name}: {t.Failure!.Reason}\n{t.Failure.Details}");
+            }
+        }
         var failures = cases.Where(c => c.Failure is not null).ToList();
-        foreach (var f in failures) Console.Error.WriteLine($"gate failed: {f.Name}: {f.Failure}");
+        foreach (var f in failures) StandardOutput.Error.WriteLine($"gate failed: {f.Name}: {f.Failure}");
         return failures.Count > 0 ? ExitCodes.GateFailed : ExitCodes.Ok;
+    }
+
+    private static void TryDelete(string folder)
+    {
+        try
+        {
+            if (Directory.Exists(folder)) Directory.Delete(folder, true);
+        }
+        catch (IOException)
+        {
+            StandardOutput.Error.WriteLine($"warning: could not remove the incomplete folder {folder}");
+        }
     }
 
     private static Scenario ApplyOptions(Scenario s, ArgumentReader a)
     {
+        s = LimitOptions.Apply(s, a);
         if (a.Option("--seed") is { } seedText)
         {
             if (!ulong.TryParse(seedText, NumberStyles.None, CultureInfo.InvariantCulture, out ulong seed))
@@ -76,12 +122,12 @@ internal static class RunCommand
         return s;
     }
 
-    private static RunResult Simulate(Scenario scenario, Func<TrackerSpec, ISeriesSink?> sinks, bool quiet)
+    private static RunResult Simulate(Scenario scenario, Func<TrackerSpec, ISeriesSink?> sinks, Func<TrackerSpec, TextWriter?> logs, bool quiet, CancellationToken cancel)
     {
         var runner = new ScenarioRunner();
         if (quiet || !ConsoleMode.Interactive)
         {
-            return runner.Run(scenario, sinks);
+            return runner.Run(scenario, sinks, cancel: cancel, logFor: logs);
         }
         RunResult? result = null;
         AnsiConsole.Progress()
@@ -89,7 +135,7 @@ internal static class RunCommand
             .Start(ctx =>
             {
                 var task = ctx.AddTask($"{scenario.Name}: {scenario.Trackers.Count} trackers, {scenario.Simulation.DurationS:0.#} s", maxValue: 1.0);
-                result = runner.Run(scenario, sinks, new Progress<double>(f => task.Value = f));
+                result = runner.Run(scenario, sinks, new Progress<double>(f => task.Value = f), cancel, logs);
                 task.Value = 1.0;
             });
         return result!;

@@ -49,20 +49,20 @@ internal static class SweepCommand
         });
         var done = SweepStore.ReadAll(output);
         var todo = mine.Where(c => !done.ContainsKey(c.Id)).ToList();
-        Console.WriteLine($"{sweep.Name}: {all.Count} cases in all; shard {shard}/{count} ({source}) has {mine.Count}, {mine.Count - todo.Count} already done, running {todo.Count} on {threads} threads");
+        StandardOutput.Out.WriteLine($"{sweep.Name}: {all.Count} cases in all; shard {shard}/{count} ({source}) has {mine.Count}, {mine.Count - todo.Count} already done, running {todo.Count} on {threads} threads");
         Run(sweep, todo, threads, output, a.Flag("--quiet"));
 
         if (count == 1)
         {
             var results = SweepStore.ReadAll(output).Values.Where(r => mine.Any(c => c.Id == r.CaseId)).ToList();
             SweepReport.Write(output, results, sweep.ObjectiveScore, sweep.HeatmapX, sweep.HeatmapY, !a.Flag("--no-plots"));
-            if (!a.Flag("--quiet")) Console.Write(File.ReadAllText(Path.Combine(output, "best.md")));
+            if (!a.Flag("--quiet")) StandardOutput.Out.Write(File.ReadAllText(Path.Combine(output, "best.md")));
         }
         else
         {
-            Console.WriteLine($"shard done; join the shards with: mppt-arena merge <shard folders...> --out DIR");
+            StandardOutput.Out.WriteLine($"shard done; join the shards with: mppt-arena merge <shard folders...> --out DIR");
         }
-        Console.WriteLine($"results: {output}");
+        StandardOutput.Out.WriteLine($"results: {output}");
         return ExitCodes.Ok;
     }
 
@@ -119,7 +119,7 @@ internal static class SweepCommand
             evaluation++;
             if (!a.Flag("--quiet"))
             {
-                Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"evaluation {evaluation}: {string.Join(", ", tune.Parameters.Select((p, k) => $"{p}={values[k]:G6}"))} -> {tune.Score} {aggregate:G6}"));
+                StandardOutput.Out.WriteLine(string.Create(CultureInfo.InvariantCulture, $"evaluation {evaluation}: {string.Join(", ", tune.Parameters.Select((p, k) => $"{p}={values[k]:G6}"))} -> {tune.Score} {aggregate:G6}"));
             }
             double f = tune.Maximise ? -aggregate : aggregate;
             return double.IsFinite(f) ? f : 1e30;
@@ -145,8 +145,8 @@ internal static class SweepCommand
         for (int k = 0; k < best.Count; k++) md.Append(CultureInfo.InvariantCulture, $"| {tune.Parameters[k]} | {best[k]:G6} | {min[k]:G6} | {max[k]:G6} |\n");
         md.Append(CultureInfo.InvariantCulture, $"\nBest {tune.Score}: {bestScore:G6}\n");
         File.WriteAllText(Path.Combine(output, "tune.md"), md.ToString());
-        Console.Write(md.ToString());
-        Console.WriteLine($"results: {output}");
+        StandardOutput.Out.Write(md.ToString());
+        StandardOutput.Out.WriteLine($"results: {output}");
         return ExitCodes.Ok;
     }
 }

@@ -1,3 +1,4 @@
+using MpptArena.Cli.Terminal;
 using System.Globalization;
 using Spectre.Console;
 
@@ -17,7 +18,7 @@ internal static class TrackersCommand
             if (d.Source.Length > 0) AnsiConsole.MarkupLine($"  source: {Markup.Escape(d.Source)}");
             foreach (var p in d.Parameters)
             {
-                Console.WriteLine($"  {p.Name} [{p.Unit}] default {p.Default.ToString("G6", c)}, range {p.Min.ToString("G6", c)} to {p.Max.ToString("G6", c)}: {p.Description}");
+                StandardOutput.Out.WriteLine($"  {p.Name} [{p.Unit}] default {p.Default.ToString("G6", c)}, range {p.Min.ToString("G6", c)} to {p.Max.ToString("G6", c)}: {p.Description}");
             }
         }
         return ExitCodes.Ok;

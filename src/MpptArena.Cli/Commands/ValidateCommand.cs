@@ -1,3 +1,4 @@
+using MpptArena.Cli.Terminal;
 using MpptArena.Scenarios;
 
 namespace MpptArena.Cli.Commands;
@@ -18,16 +19,16 @@ internal static class ValidateCommand
                 if (File.Exists(file) && File.ReadLines(file).Any(l => l.StartsWith("conditions:", StringComparison.Ordinal)))
                 {
                     var (name, array, _) = ScenarioLoader.LoadCurveSetup(file, 0);
-                    Console.WriteLine($"ok    {file}: plant file '{name}' for the curve command, {array.Layout.SubstringCount} substrings");
+                    StandardOutput.Out.WriteLine($"ok    {file}: plant file '{name}' for the curve command, {array.Layout.SubstringCount} substrings");
                     continue;
                 }
                 var s = ScenarioLoader.Load(file, registry);
-                Console.WriteLine(string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                StandardOutput.Out.WriteLine(string.Create(System.Globalization.CultureInfo.InvariantCulture,
                     $"ok    {file}: scenario '{s.Name}', {s.Trackers.Count} trackers, {s.Simulation.DurationS:G6} s simulated"));
             }
             catch (ArenaInputException ex)
             {
-                Console.Error.WriteLine($"error {ex.Message}");
+                StandardOutput.Error.WriteLine($"error {ex.Message}");
                 bad++;
             }
         }

@@ -1,3 +1,4 @@
+using MpptArena.Cli.Terminal;
 using System.Globalization;
 using MpptArena.Reports.Summary;
 using Spectre.Console;

@@ -75,6 +75,9 @@ public sealed record TrackerSummary
     /// <summary>When, if failed [s].</summary>
     public double? FailureTimeS { get; init; }
 
+    /// <summary>The last calls before the failure, oldest first; null if it did not fail.</summary>
+    public IReadOnlyList<RecentCall>? FailureRecentCalls { get; init; }
+
     /// <summary>Tracker calls made.</summary>
     public required long TrackerCalls { get; init; }
 
@@ -104,3 +107,10 @@ public sealed record SettlingEntry(double EventS, string Label, double? Settling
 /// <param name="Efficiency">Ratio [-]; null when nothing was available.</param>
 public sealed record WindowEntry(string Name, double StartS, double EndS,
     [property: System.Text.Json.Serialization.JsonPropertyName("slope_w_m2_per_s")] double? SlopeWm2PerS, double EnergyWh, double AvailableWh, double? Efficiency);
+
+/// <summary>One tracker call before a failure.</summary>
+/// <param name="TimeS">Sample instant [s].</param>
+/// <param name="VoltageV">Sensed voltage [V].</param>
+/// <param name="CurrentA">Sensed current [A].</param>
+/// <param name="Command">Command returned [V or -]; null where the call returned none.</param>
+public sealed record RecentCall(double TimeS, double VoltageV, double CurrentA, double? Command);

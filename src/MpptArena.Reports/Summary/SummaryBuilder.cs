@@ -22,6 +22,7 @@ public static class SummaryBuilder
             Failed = t.Failure is not null,
             FailureReason = t.Failure?.Reason,
             FailureTimeS = t.Failure?.TimeS,
+            FailureRecentCalls = t.Failure?.Recent.Select(r => new RecentCall(r.TimeS, r.VoltageV, r.CurrentA, double.IsFinite(r.Command) ? r.Command : null)).ToList(),
             TrackerCalls = t.TrackerCalls,
             Scores = t.Scores is null ? new SortedDictionary<string, double?>(StringComparer.Ordinal) : ScoreCatalog.ToDictionary(t.Scores),
             Settling = t.Scores?.Settling.Select(s => new SettlingEntry(s.EventS, s.Label, s.SettlingTimeS)).ToList() ?? [],
