@@ -45,13 +45,7 @@ public class RunThroughputBenchmarks
             Simulation = s.Simulation with { DurationS = durationS, PlantStepS = stepS, EnvironmentStepS = Math.Max(1e-3, stepS), SeriesIntervalS = 0 },
             Scoring = new Scoring.ScoringSettings(),
         };
-        // The ramp scenario's block at 50 W/m2/s starts after 3208 - 360 s; shift the profile so it runs now.
-        var profile = ramps.Environment.Irradiance;
-        double blockStart = profile.EndTimeS - 360;
-        var shifted = new Environment.PiecewiseLinearProfile(
-            profile.TimesS.Where(t => t >= blockStart).Select(t => t - blockStart).ToList(),
-            profile.TimesS.Select((t, i) => (t, i)).Where(x => x.t >= blockStart).Select(x => profile.Values[x.i]).ToList());
-        var rampScenario = ramps with { Environment = ramps.Environment with { Irradiance = shifted } };
+        var rampScenario = LastBlock(ramps, 360);
         _rampBoost = Make(rampScenario, FrontEndKind.Boost, 1e-3);
         _rampIdeal = Make(rampScenario, FrontEndKind.IdealSource, 10e-3);
         _blockBoost = Make(rampScenario, FrontEndKind.Boost, 1e-3, 360);
@@ -62,7 +56,19 @@ public class RunThroughputBenchmarks
         _exact = _array.Solve(_array.UniformConditions(850, 40));
     }
 
-    private static string FindRoot()
+    /// <summary>The ramp scenario with its profile shifted so that its last <paramref name="seconds"/> (the 50 W/m2/s block) run from t = 0.</summary>
+    public static Scenario LastBlock(Scenario ramps, double seconds)
+    {
+        var profile = ramps.Environment.Irradiance;
+        double blockStart = profile.EndTimeS - seconds;
+        var shifted = new Environment.PiecewiseLinearProfile(
+            profile.TimesS.Where(t => t >= blockStart).Select(t => t - blockStart).ToList(),
+            profile.TimesS.Select((t, i) => (t, i)).Where(x => x.t >= blockStart).Select(x => profile.Values[x.i]).ToList());
+        return ramps with { Environment = ramps.Environment with { Irradiance = shifted } };
+    }
+
+    /// <summary>The checkout's root (where MpptArena.sln is).</summary>
+    public static string FindRoot()
     {
         var dir = new DirectoryInfo(AppContext.BaseDirectory);
         while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "MpptArena.sln"))) dir = dir.Parent;

@@ -1,7 +1,7 @@
 using MpptArena.Trackers;
 using MpptArena.Trackers.Isolation;
 
-namespace MpptArena.TrackerHost;
+namespace MpptArena.Host;
 
 /// <summary>The host's request loop: CREATE, STEP (by frame or through the shared slot), DESTROY, MAP, until its input ends.</summary>
 internal sealed class HostServer(IHostedSource source, IReadOnlyList<TrackerParameter> declared, FrameReader reader, FrameBuilder builder, Stream output)

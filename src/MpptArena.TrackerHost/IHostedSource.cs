@@ -1,6 +1,6 @@
 using MpptArena.Trackers;
 
-namespace MpptArena.TrackerHost;
+namespace MpptArena.Host;
 
 /// <summary>Where the host's tracker instances come from; each instance starts with fresh globals.</summary>
 internal interface IHostedSource

@@ -1,7 +1,7 @@
 using MpptArena.Trackers;
 using MpptArena.Trackers.Native;
 
-namespace MpptArena.TrackerHost;
+namespace MpptArena.Host;
 
 /// <summary>
 /// A C tracker library, loaded from a private copy for every instance: the dynamic loader maps a file it has

@@ -1,6 +1,6 @@
 using MpptArena.Trackers;
 
-namespace MpptArena.TrackerHost;
+namespace MpptArena.Host;
 
 /// <summary>A tracker kind of a .NET plug-in, loaded in a fresh collectible context for every instance (fresh static fields).</summary>
 internal sealed class PluginSource(string assemblyPath, string kind) : IHostedSource

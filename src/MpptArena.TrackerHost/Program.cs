@@ -2,7 +2,7 @@ using MpptArena;
 using MpptArena.Trackers;
 using MpptArena.Trackers.Isolation;
 
-namespace MpptArena.TrackerHost;
+namespace MpptArena.Host;
 
 /// <summary>
 /// mppt-arena-host: serves one tracker instance at a time to the arena over the tracker host protocol

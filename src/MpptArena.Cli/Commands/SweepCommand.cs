@@ -50,7 +50,19 @@ internal static class SweepCommand
         var done = SweepStore.ReadAll(output);
         var todo = mine.Where(c => !done.ContainsKey(c.Id)).ToList();
         StandardOutput.Out.WriteLine($"{sweep.Name}: {all.Count} cases in all; shard {shard}/{count} ({source}) has {mine.Count}, {mine.Count - todo.Count} already done, running {todo.Count} on {threads} threads");
-        Run(sweep, todo, threads, output, a.Flag("--quiet"));
+        using (var interruption = new Interruption())
+        {
+            try
+            {
+                Run(sweep, todo, threads, output, a.Flag("--quiet"), interruption.Token);
+            }
+            catch (OperationCanceledException)
+            {
+                int kept = SweepStore.ReadAll(output).Count(kv => mine.Any(c => c.Id == kv.Key));
+                StandardOutput.Error.WriteLine($"interrupted by {interruption.SignalName}: {kept} of {mine.Count} cases of this shard are complete in {output}; run the same command again to resume with the rest");
+                return interruption.ExitCode;
+            }
+        }
 
         if (count == 1)
         {
@@ -63,15 +75,18 @@ internal static class SweepCommand
             StandardOutput.Out.WriteLine($"shard done; join the shards with: mppt-arena merge <shard folders...> --out DIR");
         }
         StandardOutput.Out.WriteLine($"results: {output}");
-        return ExitCodes.Ok;
+        var failed = SweepStore.ReadAll(output).Values.Where(r => r.Failed && mine.Any(c => c.Id == r.CaseId)).OrderBy(r => r.CaseId, StringComparer.Ordinal).ToList();
+        if (failed.Count == 0) return ExitCodes.Ok;
+        StandardOutput.Error.WriteLine($"{failed.Count} of {mine.Count} cases had a tracker that failed (first: case {failed[0].CaseId}: {failed[0].FailureReason}); see cases.csv");
+        return ExitCodes.GateFailed;
     }
 
-    private static void Run(SweepDefinition sweep, IReadOnlyList<SweepCase> todo, int threads, string output, bool quiet)
+    private static void Run(SweepDefinition sweep, IReadOnlyList<SweepCase> todo, int threads, string output, bool quiet, CancellationToken cancel)
     {
         if (todo.Count == 0) return;
         if (quiet || !ConsoleMode.Interactive)
         {
-            SweepExecutor.RunAll(sweep, todo, threads, (c, r) => SweepStore.Write(output, SweepStore.ToResult(c, r)));
+            SweepExecutor.RunAll(sweep, todo, threads, (c, r) => SweepStore.Write(output, SweepStore.ToResult(c, r)), cancel);
             return;
         }
         AnsiConsole.Progress()
@@ -83,7 +98,7 @@ internal static class SweepCommand
                 {
                     SweepStore.Write(output, SweepStore.ToResult(c, r));
                     task.Increment(1);
-                });
+                }, cancel);
             });
     }
 

@@ -20,12 +20,12 @@ public static class SweepExecutor
     }
 
     /// <summary>Runs one case.</summary>
-    public static RunResult Run(SweepDefinition sweep, SweepCase c) => new ScenarioRunner().Run(ScenarioFor(sweep, c));
+    public static RunResult Run(SweepDefinition sweep, SweepCase c, CancellationToken cancel = default) => new ScenarioRunner().Run(ScenarioFor(sweep, c), cancel: cancel);
 
     /// <summary>Runs <paramref name="cases"/> on up to <paramref name="threads"/> threads, calling <paramref name="finished"/> as each completes (from any thread).</summary>
     public static void RunAll(SweepDefinition sweep, IReadOnlyList<SweepCase> cases, int threads, Action<SweepCase, RunResult> finished, CancellationToken cancel = default)
     {
         var options = new ParallelOptions { MaxDegreeOfParallelism = Math.Max(1, threads), CancellationToken = cancel };
-        Parallel.ForEach(cases, options, c => finished(c, Run(sweep, c)));
+        Parallel.ForEach(cases, options, c => finished(c, Run(sweep, c, cancel)));
     }
 }
