@@ -17,7 +17,9 @@ public class SchemaTests
     public void EveryBundledScenarioMatchesTheShippedScenarioSchema()
     {
         var validator = MiniSchemaValidator.Load(Path.Combine(RepoRoot.Path, "scenarios", "scenario.schema.json"));
-        foreach (string file in Directory.GetFiles(Path.Combine(RepoRoot.Path, "scenarios"), "*.yaml").Where(f => !Path.GetFileName(f).StartsWith("plant-")))
+        var files = Directory.GetFiles(Path.Combine(RepoRoot.Path, "scenarios"), "*.yaml").Where(f => !Path.GetFileName(f).StartsWith("plant-"))
+            .Concat(Directory.GetFiles(Path.Combine(RepoRoot.Path, "examples"), "scenario.yaml", SearchOption.AllDirectories));
+        foreach (string file in files)
         {
             Assert.True(validator.Validate(Yaml(File.ReadAllText(file))), $"{file}: {string.Join("; ", validator.Errors)}");
         }

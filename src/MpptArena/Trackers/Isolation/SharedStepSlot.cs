@@ -44,8 +44,8 @@ public sealed unsafe class SharedStepSlot : IDisposable
         _spinTicks = (long)(spinS * Stopwatch.Frequency);
     }
 
-    /// <summary>How long a side spins before it sleeps [s]: longer than a typical plant computation between two tracker calls.</summary>
-    public const double DefaultSpinS = 50e-6;
+    /// <summary>How long a side spins (yielding its core between looks) before it sleeps [s]: longer than the plant computation between two tracker calls.</summary>
+    public const double DefaultSpinS = 200e-6;
 
     /// <summary>Creates the slot file (which must not exist) and maps it.</summary>
     public static SharedStepSlot Create(string path, double spinS = DefaultSpinS) => new(path, true, spinS);
@@ -119,7 +119,13 @@ public sealed unsafe class SharedStepSlot : IDisposable
                 if (Volatile.Read(ref seq) >= atLeast) return true;
                 Thread.SpinWait(8);
             }
-            if (Stopwatch.GetTimestamp() - start < _spinTicks) continue;
+            if (Stopwatch.GetTimestamp() - start < _spinTicks)
+            {
+                // Give the core away between looks: where the peer waits for a core (more busy threads than
+                // cores, as in a sweep), it gets this one instead of waiting for the scheduler's next tick.
+                Thread.Yield();
+                continue;
+            }
             Volatile.Write(ref At32(ownAsleepOffset), 1);
             Interlocked.MemoryBarrier();
             if (Volatile.Read(ref seq) >= atLeast)

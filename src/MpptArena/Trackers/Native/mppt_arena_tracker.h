@@ -18,12 +18,16 @@
  * Timing: mppt_arena_step is called at t_k = k T (T = context->sample_period_s). The measurement holds
  * the conversions taken in the averaging window ending at t_k. The returned command takes effect at
  * t_k and holds until the next call. mppt_arena_create returns the command for t = 0 in
- * *initial_command, or NULL on failure. The arena never calls a tracker from two threads at once;
- * different tracker instances may run on different threads, so keep state in the instance.
+ * *initial_command, or NULL on failure. The arena never calls a tracker from two threads at once.
+ *
+ * By default (isolation: process) every instance runs in a host process of its own, from a private
+ * copy of the library, so file-scope globals are the instance's own and start as the file
+ * initialises them; a crash, exit(), abort(), endless loop or runaway allocation stops this tracker
+ * alone and is reported with the time and call. printf output goes to the tracker's log. With
+ * isolation: in_process instances share the library's globals and a crash ends the arena.
  *
  * A returned command that is NaN, infinite or outside [context->min_command, context->max_command]
- * stops the tracker; the run reports it as failed and the other trackers go on. A crash inside the
- * library ends the whole process: test firmware code with sanitizers first.
+ * stops the tracker; the run reports it as failed and the other trackers go on.
  */
 #ifndef MPPT_ARENA_TRACKER_H
 #define MPPT_ARENA_TRACKER_H
