@@ -26,6 +26,7 @@ public sealed class TrackerHost : IDisposable
     private long _logBytes;
     private long _sequence;
     private long _callStartTicks;
+    private double _callLimitS;
     private volatile string? _watchdogFault;
     private bool _pendingFrame;
 
@@ -189,8 +190,6 @@ public sealed class TrackerHost : IDisposable
         long start = Volatile.Read(ref _callStartTicks);
         return (start == 0 ? null : (Stopwatch.GetTimestamp() - start) / (double)Stopwatch.Frequency, _callLimitS);
     }
-
-    private double _callLimitS;
 
     /// <summary>Resident memory of the host process [bytes], or null if it cannot be read.</summary>
     internal long? ResidentBytes()

@@ -53,14 +53,14 @@ public sealed unsafe class NativeTracker : IMpptTracker, IDisposable
     /// <inheritdoc/>
     public double Step(in TrackerMeasurement m)
     {
-        int n = Math.Max(m.Conversions, 1);
+        var (voltageSum, currentSum, n) = Isolation.HostMessages.CodeSums(m);
         var native = new NativeAbi.Measurement
         {
             TimeS = m.TimeS,
             VoltageV = m.VoltageV,
             CurrentA = m.CurrentA,
-            VoltageCodeSum = (long)Math.Round(m.VoltageCode * n),
-            CurrentCodeSum = (long)Math.Round(m.CurrentCode * n),
+            VoltageCodeSum = voltageSum,
+            CurrentCodeSum = currentSum,
             Conversions = n,
             PreviousCommand = m.PreviousCommand,
         };
