@@ -2,6 +2,7 @@ using MpptArena.Cli.Terminal;
 using System.Globalization;
 using MpptArena.Arrays;
 using MpptArena.Reports.Exporters;
+using MpptArena.Reports.Output;
 using MpptArena.Reports.Plots;
 using MpptArena.Scenarios;
 using Spectre.Console;
@@ -11,21 +12,21 @@ namespace MpptArena.Cli.Commands;
 /// <summary>mppt-arena curve FILE.yaml: the array's I-V and P-V curves and every MPP, as CSV, PNG and a table.</summary>
 internal static class CurveCommand
 {
-    public const string Usage = "mppt-arena curve PLANT_OR_SCENARIO.yaml [--at SECONDS] [--out DIR] [--points N]";
+    public const string Usage = "mppt-arena curve PLANT_OR_SCENARIO.yaml [--at SECONDS] [--out DIR] [--force] [--points N]";
 
     public static int Execute(string[] args)
     {
-        var a = new ArgumentReader(args, "curve", ["--at", "--out", "--points"], []);
+        var a = new ArgumentReader(args, "curve", ["--at", "--out", "--points"], ["--force"]);
         a.RequirePositional(1, Usage);
         double at = ParseNumber(a.Option("--at") ?? "0", "--at", 0);
-        int points = (int)ParseNumber(a.Option("--points") ?? "1000", "--points", 10);
+        int points = (int)ParseNumber(a.Option("--points") ?? "1000", "--points", 10, MaxPoints);
         var (name, array, conditions) = ScenarioLoader.LoadCurveSetup(a.Positional[0], at);
+        using var stage = StagedOutput.Begin(a.Option("--out") ?? Path.Combine("results", $"{name}-curve"), "curve", a.Flag("--force"), numberIfTaken: a.Option("--out") is null);
         var exact = array.Solve(conditions);
         var peaks = MppSearch.FindPeaks(exact);
         var (v, i) = CurveExport.Sample(exact, points);
 
-        string folder = a.Option("--out") ?? Path.Combine("results", $"{name}-curve");
-        Directory.CreateDirectory(folder);
+        string folder = stage.StagingPath;
         File.WriteAllText(Path.Combine(folder, "curve.csv"), CurveExport.Csv(v, i));
         File.WriteAllText(Path.Combine(folder, "peaks.csv"), CurveExport.PeaksCsv(peaks));
         string title = at > 0 ? $"{name} at t = {at.ToString("0.###", CultureInfo.InvariantCulture)} s" : name;
@@ -46,15 +47,19 @@ internal static class CurveCommand
                 k == peaks.GlobalIndex ? "[bold]global[/]" : "local");
         }
         AnsiConsole.Write(table);
-        StandardOutput.Out.WriteLine($"results: {folder}");
+        StandardOutput.Out.WriteLine($"results: {Path.GetRelativePath(Directory.GetCurrentDirectory(), stage.Commit())}");
         return ExitCodes.Ok;
     }
 
-    internal static double ParseNumber(string text, string option, double min)
+    /// <summary>Most points on a curve: far finer than any plot or CSV needs.</summary>
+    public const int MaxPoints = 1_000_000;
+
+    internal static double ParseNumber(string text, string option, double min, double max = double.MaxValue)
     {
-        if (!double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out double v) || !double.IsFinite(v) || v < min)
+        if (!double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out double v) || !double.IsFinite(v) || v < min || v > max)
         {
-            throw new ArenaInputException($"{option} '{text}' must be a number of at least {min.ToString(CultureInfo.InvariantCulture)}", option);
+            string range = max < double.MaxValue ? $"from {min.ToString(CultureInfo.InvariantCulture)} to {max.ToString(CultureInfo.InvariantCulture)}" : $"of at least {min.ToString(CultureInfo.InvariantCulture)}";
+            throw new ArenaInputException($"{option} '{text}' must be a number {range}", option);
         }
         return v;
     }

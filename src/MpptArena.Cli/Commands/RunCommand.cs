@@ -1,6 +1,7 @@
 using System.Globalization;
 using MpptArena.Cli.Terminal;
 using MpptArena.Reports.Exporters;
+using MpptArena.Reports.Output;
 using MpptArena.Reports.Summary;
 using MpptArena.Runs;
 using MpptArena.Scenarios;
@@ -12,21 +13,25 @@ namespace MpptArena.Cli.Commands;
 /// <summary>mppt-arena run SCENARIO.yaml: runs every tracker and writes a results folder.</summary>
 internal static class RunCommand
 {
-    public const string Usage = "mppt-arena run SCENARIO.yaml [--tracker NAME]... [--out DIR] [--seed N] [--full-series] [--no-plots] [--junit FILE] [--fail-below SCORE=VALUE]... [--fail-above SCORE=VALUE]... [--plugin ASSEMBLY.dll]... [--call-limit-ms MS] [--run-limit-s S] [--memory-limit-mib MIB] [--debug]";
+    public const string Usage = "mppt-arena run SCENARIO.yaml [--tracker NAME]... [--out DIR] [--force] [--seed N] [--full-series] [--no-plots] [--junit FILE] [--fail-below SCORE=VALUE]... [--fail-above SCORE=VALUE]... [--plugin ASSEMBLY.dll]... [--call-limit-ms MS] [--run-limit-s S] [--memory-limit-mib MIB] [--debug]";
 
     public static int Execute(string[] args)
     {
-        var a = new ArgumentReader(args, "run", ["--tracker", "--out", "--seed", "--junit", "--fail-below", "--fail-above", "--plugin", "--call-limit-ms", "--run-limit-s", "--memory-limit-mib"], ["--full-series", "--no-plots", "--quiet", "--debug"]);
+        var a = new ArgumentReader(args, "run", ["--tracker", "--out", "--seed", "--junit", "--fail-below", "--fail-above", "--plugin", "--call-limit-ms", "--run-limit-s", "--memory-limit-mib"], ["--full-series", "--no-plots", "--quiet", "--debug", "--force"]);
         a.RequirePositional(1, Usage);
         var registry = Plugins.Registry(a.Options("--plugin"));
         var scenario = ScenarioLoader.Load(a.Positional[0], registry);
         scenario = ApplyOptions(scenario, a);
         var gates = Gate.ParseAll(a.Options("--fail-below"), a.Options("--fail-above"));
 
-        string finalDir = a.Option("--out") ?? Path.Combine("results", ResultsWriter.DefaultFolderName(scenario.Name, DateTime.UtcNow));
-        string workDir = finalDir.TrimEnd('/', '\\') + ".partial";
-        if (Directory.Exists(workDir)) Directory.Delete(workDir, true);
-        Directory.CreateDirectory(workDir);
+        gates.CheckAgainst(scenario.Trackers.Select(t => t.Name).ToList(),
+            scenario.Scoring.AllWindows.Select(w => w.Name).Concat(scenario.Scoring.AllWindows.Select(w => w.Group).OfType<string>()).Distinct().ToList());
+        if (a.Option("--junit") is { } junitPath) JUnitWriter.CheckTarget(junitPath);
+
+        bool chosen = a.Option("--out") is not null;
+        string requested = a.Option("--out") ?? Path.Combine("results", ResultsWriter.DefaultFolderName(scenario.Name, DateTime.UtcNow));
+        using var stage = StagedOutput.Begin(requested, "run", a.Flag("--force"), numberIfTaken: !chosen);
+        string workDir = stage.StagingPath;
         RunSummary summary;
         RunResult result;
         using var interruption = new Interruption();
@@ -35,7 +40,7 @@ internal static class RunCommand
         {
             // An in-process call that does not return cannot be stopped: end the run, never hang, never exit 0.
             StandardOutput.Error.WriteLine($"error: tracker '{tracker}' runs in process and made no reply within {limitS:0.###} s; it cannot be stopped inside the arena, so the run ends here (run it with 'isolation: process' to have it stopped alone)");
-            TryDelete(workDir);
+            stage.Dispose();
             System.Environment.Exit(ExitCodes.GateFailed);
         }
         Trackers.Isolation.HostWatchdog.InProcessCallOverrun += OnOverrun;
@@ -52,22 +57,19 @@ internal static class RunCommand
         catch (OperationCanceledException)
         {
             logs.Dispose();
-            TryDelete(workDir);
-            StandardOutput.Error.WriteLine($"interrupted by {interruption.SignalName}: the run stopped before its end and its partial output was removed; nothing was written to {finalDir}");
+            StandardOutput.Error.WriteLine($"interrupted by {interruption.SignalName}: the run stopped before its end and its partial output was removed; nothing was written to {requested}");
             return interruption.ExitCode;
         }
         catch
         {
             logs.Dispose();
-            TryDelete(workDir);
             throw;
         }
         finally
         {
             Trackers.Isolation.HostWatchdog.InProcessCallOverrun -= OnOverrun;
         }
-        if (Directory.Exists(finalDir)) Directory.Delete(finalDir, true);
-        Directory.Move(workDir, finalDir);
+        string finalDir = Path.GetRelativePath(Directory.GetCurrentDirectory(), stage.Commit(["logs"]));
 
         if (!a.Flag("--quiet")) RankingTable.Print(summary);
         var cases = gates.Check(summary);
@@ -83,18 +85,6 @@ internal static class RunCommand
         var failures = cases.Where(c => c.Failure is not null).ToList();
         foreach (var f in failures) StandardOutput.Error.WriteLine($"gate failed: {f.Name}: {f.Failure}");
         return failures.Count > 0 ? ExitCodes.GateFailed : ExitCodes.Ok;
-    }
-
-    private static void TryDelete(string folder)
-    {
-        try
-        {
-            if (Directory.Exists(folder)) Directory.Delete(folder, true);
-        }
-        catch (IOException)
-        {
-            StandardOutput.Error.WriteLine($"warning: could not remove the incomplete folder {folder}");
-        }
     }
 
     private static Scenario ApplyOptions(Scenario s, ArgumentReader a)

@@ -2,6 +2,7 @@ using System.Globalization;
 using System.Text;
 using System.Text.Json;
 using MpptArena.Cli.Terminal;
+using MpptArena.Reports.Output;
 using MpptArena.Reports.Summary;
 using MpptArena.Reports.Sweeps;
 using MpptArena.Sweeps;
@@ -12,11 +13,11 @@ namespace MpptArena.Cli.Commands;
 /// <summary>mppt-arena sweep SWEEP.yaml: runs (a shard of) a parameter sweep in parallel, resumable; or tunes with --tune.</summary>
 internal static class SweepCommand
 {
-    public const string Usage = "mppt-arena sweep SWEEP.yaml [--out DIR] [--shard K/N] [--threads N] [--tune] [--no-plots] [--plugin DLL]... [--quiet]";
+    public const string Usage = "mppt-arena sweep SWEEP.yaml [--out DIR] [--force] [--shard K/N] [--threads N] [--tune] [--no-plots] [--plugin DLL]... [--quiet]";
 
     public static int Execute(string[] args)
     {
-        var a = new ArgumentReader(args, "sweep", ["--out", "--shard", "--threads", "--plugin"], ["--tune", "--no-plots", "--quiet"]);
+        var a = new ArgumentReader(args, "sweep", ["--out", "--shard", "--threads", "--plugin"], ["--tune", "--no-plots", "--quiet", "--force"]);
         a.RequirePositional(1, Usage);
         var sweep = SweepLoader.Load(a.Positional[0], Plugins.Registry(a.Options("--plugin")));
         if (ScoreCatalog.Find(sweep.ObjectiveScore) is null)
@@ -32,19 +33,11 @@ internal static class SweepCommand
         var (shard, count, source) = ShardOption.Resolve(a.Option("--shard"), System.Environment.GetEnvironmentVariable);
         var mine = SweepPlanner.Shard(all, shard, count);
         string output = a.Option("--out") ?? Path.Combine("results", count == 1 ? $"sweep-{sweep.Name}" : $"sweep-{sweep.Name}-shard-{shard}-of-{count}");
-        Directory.CreateDirectory(output);
         string digest = SweepStore.Digest(all);
-        if (File.Exists(Path.Combine(output, "sweep.json")))
-        {
-            var existing = SweepStore.ReadManifest(output);
-            if (existing.SweepDigest != digest || existing.Shard != shard || existing.ShardCount != count)
-            {
-                throw new ArenaInputException($"'{output}' holds another sweep or shard ({existing.Name} {existing.Shard}/{existing.ShardCount}); choose another --out", "--out");
-            }
-        }
+        OpenSweepFolder(output, sweep, mine, shard, count, a.Flag("--force"));
         SweepStore.WriteManifest(output, new SweepManifest
         {
-            Schema = SweepManifest.SchemaId, Name = sweep.Name, SweepDigest = digest, TotalCases = all.Count, Shard = shard, ShardCount = count,
+            Schema = SweepManifest.SchemaId, Name = sweep.Name, SweepDigest = digest, Inputs = SweepPlanner.Inputs(sweep), TotalCases = all.Count, Shard = shard, ShardCount = count,
             ShardCases = mine.Count, Objective = sweep.ObjectiveScore, HeatmapX = sweep.HeatmapX, HeatmapY = sweep.HeatmapY,
         });
         var done = SweepStore.ReadAll(output);
@@ -68,6 +61,7 @@ internal static class SweepCommand
         {
             var results = SweepStore.ReadAll(output).Values.Where(r => mine.Any(c => c.Id == r.CaseId)).ToList();
             SweepReport.Write(output, results, sweep.ObjectiveScore, sweep.HeatmapX, sweep.HeatmapY, !a.Flag("--no-plots"));
+            OutputMarker.Describe(output, "sweep", [SweepStore.CasesFolderName]).Write(output);
             if (!a.Flag("--quiet")) StandardOutput.Out.Write(File.ReadAllText(Path.Combine(output, "best.md")));
         }
         else
@@ -79,6 +73,45 @@ internal static class SweepCommand
         if (failed.Count == 0) return ExitCodes.Ok;
         StandardOutput.Error.WriteLine($"{failed.Count} of {mine.Count} cases had a tracker that failed (first: case {failed[0].CaseId}: {failed[0].FailureReason}); see cases.csv");
         return ExitCodes.GateFailed;
+    }
+
+    /// <summary>
+    /// A sweep writes its cases in place so that it can resume: a folder of the same sweep and shard is
+    /// resumed, and when an input changed since (a scenario, a CSV it reads, a tracker's code, the tool) the
+    /// cases it affects have new identities and run again while the stale ones are removed; a new or empty
+    /// folder is started; another sweep's folder or an earlier arena output is replaced only with --force;
+    /// anything else is refused before a case runs.
+    /// </summary>
+    private static void OpenSweepFolder(string output, SweepDefinition sweep, IReadOnlyList<SweepCase> mine, int shard, int count, bool force)
+    {
+        string full = OutputTarget.FullPath(output);
+        var inputs = SweepPlanner.Inputs(sweep);
+        var marker = Directory.Exists(full) ? OutputMarker.Read(full) : null;
+        if (marker is { Kind: "sweep" } && marker.FirstForeignEntry(full) is null && File.Exists(Path.Combine(full, "sweep.json")))
+        {
+            var existing = SweepStore.ReadManifest(output);
+            if (existing.Name == sweep.Name && existing.Shard == shard && existing.ShardCount == count)
+            {
+                if (!existing.Inputs.SequenceEqual(inputs))
+                {
+                    var ids = mine.Select(c => c.Id).ToHashSet(StringComparer.Ordinal);
+                    int stale = SweepStore.RemoveExcept(output, ids);
+                    StandardOutput.Out.WriteLine($"{output}: {SweepStore.DescribeChange(existing, inputs)} since it was written; {stale} case result(s) they affect were removed and run again");
+                }
+                return;
+            }
+            if (!force)
+            {
+                throw new ArenaInputException($"'{output}' holds another sweep or sharding ({existing.Name}, shard {existing.Shard}/{existing.ShardCount}; this is {sweep.Name}, shard {shard}/{count}); add --force to start this one there, or choose another --out", "--out");
+            }
+            Directory.Delete(full, recursive: true);
+        }
+        else if (OutputTarget.Check(full, force) == OutputTargetState.ArenaOutput)
+        {
+            Directory.Delete(full, recursive: true);
+        }
+        Directory.CreateDirectory(full);
+        new OutputMarker { Schema = OutputMarker.SchemaId, Kind = "sweep", ToolVersion = SummaryBuilder.ToolVersion, Files = ["sweep.json"], Folders = [SweepStore.CasesFolderName] }.Write(full);
     }
 
     private static void Run(SweepDefinition sweep, IReadOnlyList<SweepCase> todo, int threads, string output, bool quiet, CancellationToken cancel)
@@ -106,6 +139,7 @@ internal static class SweepCommand
     {
         var tune = sweep.Tune ?? throw new ArenaInputException("--tune needs a 'tune' section in the sweep file", "tune");
         if (ScoreCatalog.Find(tune.Score) is null) throw new ArenaInputException($"tune score '{tune.Score}' is not a score", "tune");
+        using var stage = StagedOutput.Begin(a.Option("--out") ?? Path.Combine("results", $"tune-{sweep.Name}"), "tune", a.Flag("--force"), numberIfTaken: a.Option("--out") is null);
         var tracker = sweep.Trackers.First(t => t.Name == tune.TrackerName);
         var declared = tune.Parameters.Select(p => tracker.Descriptor.Parameters.First(d => d.Name == p)).ToList();
         // Search box: the sweep's own range of a parameter when it sweeps it, else its declared range.
@@ -122,7 +156,7 @@ internal static class SweepCommand
             var parameters = new Dictionary<string, double>(baseParameters);
             for (int k = 0; k < values.Count; k++) parameters[tune.Parameters[k]] = values[k];
             var sorted = parameters.OrderBy(kv => kv.Key, StringComparer.Ordinal).ToList();
-            var cases = sweep.Scenarios.Select((s, i) => new SweepCase(i, s.Name, tracker.Name, tracker.Descriptor.Kind, period, sorted)).ToList();
+            var cases = sweep.Scenarios.Select((s, i) => new SweepCase(i, s.Name, tracker.Name, tracker.Descriptor.Kind, period, sorted, SweepPlanner.InputDigestOf(s, tracker))).ToList();
             var scores = new double[cases.Count];
             SweepExecutor.RunAll(sweep, cases, threads, (c, r) =>
             {
@@ -140,8 +174,7 @@ internal static class SweepCommand
             return double.IsFinite(f) ? f : 1e30;
         }
         var (best, bestObjective, history) = ParameterTuner.Minimise(Objective, min, max, start, tune.MaxEvaluations);
-        string output = a.Option("--out") ?? Path.Combine("results", $"tune-{sweep.Name}");
-        Directory.CreateDirectory(output);
+        string output = stage.StagingPath;
         double bestScore = tune.Maximise ? -bestObjective : bestObjective;
         var doc = new
         {
@@ -161,7 +194,7 @@ internal static class SweepCommand
         md.Append(CultureInfo.InvariantCulture, $"\nBest {tune.Score}: {bestScore:G6}\n");
         File.WriteAllText(Path.Combine(output, "tune.md"), md.ToString());
         StandardOutput.Out.Write(md.ToString());
-        StandardOutput.Out.WriteLine($"results: {output}");
+        StandardOutput.Out.WriteLine($"results: {Path.GetRelativePath(Directory.GetCurrentDirectory(), stage.Commit())}");
         return ExitCodes.Ok;
     }
 }

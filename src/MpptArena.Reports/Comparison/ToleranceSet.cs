@@ -1,5 +1,6 @@
 using System.Globalization;
 using MpptArena.Reports.Summary;
+using MpptArena.Scenarios;
 using YamlDotNet.RepresentationModel;
 
 namespace MpptArena.Reports.Comparison;
@@ -27,24 +28,14 @@ public sealed class ToleranceSet
     /// </summary>
     public void LoadYaml(string path)
     {
-        if (!File.Exists(path)) throw new ArenaInputException($"tolerance file '{path}' not found", "file");
-        var stream = new YamlStream();
-        try
+        var rootNode = YamlInput.ReadRoot(YamlInput.ReadText(path, "tolerance file"), path, "a mapping from score key to { absolute, relative }");
+        if (rootNode is not YamlMappingNode root)
         {
-            stream.Load(new StringReader(File.ReadAllText(path)));
-        }
-        catch (YamlDotNet.Core.YamlException ex)
-        {
-            throw new ArenaInputException($"not valid YAML: {ex.InnerException?.Message ?? ex.Message}", null, new SourceLocation(path, ex.Start.Line, ex.Start.Column));
-        }
-        if (stream.Documents.Count == 0) return;
-        if (stream.Documents[0].RootNode is not YamlMappingNode root)
-        {
-            throw new ArenaInputException("expected a mapping from score key to { absolute, relative }", null, Where(path, stream.Documents[0].RootNode));
+            throw new ArenaInputException("expected a mapping from score key to { absolute, relative }", null, Where(path, rootNode));
         }
         foreach (var (k, v) in root.Children)
         {
-            string key = ((YamlScalarNode)k).Value ?? "";
+            if (k is not YamlScalarNode { Value: { } key }) throw new ArenaInputException("expected a score key (text)", null, Where(path, k));
             if (key != "window:*" && ScoreCatalog.Find(key) is null)
             {
                 throw new ArenaInputException($"unknown score '{key}'; known: {string.Join(", ", ScoreCatalog.All.Select(s => s.Key))}, window:NAME, window:*", key, Where(path, k));
@@ -53,7 +44,7 @@ public sealed class ToleranceSet
             double abs = 0, rel = 0;
             foreach (var (fk, fv) in m.Children)
             {
-                string f = ((YamlScalarNode)fk).Value ?? "";
+                if (fk is not YamlScalarNode { Value: { } f }) throw new ArenaInputException($"expected 'absolute' or 'relative' under '{key}'", key, Where(path, fk));
                 if (f is not ("absolute" or "relative")) throw new ArenaInputException($"unknown key '{f}' under '{key}'; expected absolute or relative", f, Where(path, fk));
                 if (fv is not YamlScalarNode s || !double.TryParse(s.Value, NumberStyles.Float, CultureInfo.InvariantCulture, out double x) || x < 0 || !double.IsFinite(x))
                 {
@@ -73,7 +64,7 @@ public sealed class ToleranceSet
         string key = text[..eq];
         if (key != "window:*" && ScoreCatalog.Find(key) is null) throw new ArenaInputException($"unknown score '{key}' in --tolerance", "--tolerance");
         var parts = text[(eq + 1)..].Split(',');
-        double Parse(string s) => double.TryParse(s, NumberStyles.Float, CultureInfo.InvariantCulture, out double v) && v >= 0
+        double Parse(string s) => double.TryParse(s, NumberStyles.Float, CultureInfo.InvariantCulture, out double v) && v >= 0 && double.IsFinite(v)
             ? v : throw new ArenaInputException($"tolerance value '{s}' in '{text}' must be a number of at least 0", "--tolerance");
         Set(key, new Tolerance(Parse(parts[0]), parts.Length > 1 ? Parse(parts[1]) : 0));
     }

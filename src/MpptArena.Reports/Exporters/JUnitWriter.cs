@@ -25,11 +25,36 @@ public static class JUnitWriter
             list));
     }
 
-    /// <summary>Writes the cases to <paramref name="path"/>.</summary>
+    /// <summary>
+    /// Refuses, before any work, a report path that is empty, a folder, or an existing file that is not a
+    /// JUnit report (a file the arena would not have written is never overwritten).
+    /// </summary>
+    public static void CheckTarget(string path, string option = "--junit")
+    {
+        if (string.IsNullOrWhiteSpace(path)) throw new ArenaInputException($"{option} needs a file name; it was empty", option);
+        if (Directory.Exists(path)) throw new ArenaInputException($"{option} '{path}' is a folder; name a file such as {Path.Combine(path, "mppt-arena.xml")}", option);
+        if (!File.Exists(path) || new FileInfo(path).Length == 0) return;
+        bool isReport;
+        try
+        {
+            using var reader = System.Xml.XmlReader.Create(path);
+            isReport = reader.MoveToContent() == System.Xml.XmlNodeType.Element && reader.LocalName == "testsuites";
+        }
+        catch (System.Xml.XmlException)
+        {
+            isReport = false;
+        }
+        if (!isReport) throw new ArenaInputException($"{option} '{path}' exists and is not a JUnit report; it is not overwritten: name a new file", option);
+    }
+
+    /// <summary>Writes the cases to <paramref name="path"/> (a temporary file renamed into place).</summary>
     public static void Write(string path, IEnumerable<JUnitCase> cases)
     {
-        string? dir = Path.GetDirectoryName(Path.GetFullPath(path));
-        if (dir is not null) Directory.CreateDirectory(dir);
-        Build(cases).Save(path);
+        string full = Path.GetFullPath(path);
+        string dir = Path.GetDirectoryName(full)!;
+        Directory.CreateDirectory(dir);
+        string temp = Path.Combine(dir, $".{Path.GetFileName(full)}.{System.Environment.ProcessId}.tmp");
+        Build(cases).Save(temp);
+        File.Move(temp, full, overwrite: true);
     }
 }

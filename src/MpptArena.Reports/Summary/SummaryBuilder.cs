@@ -1,4 +1,3 @@
-using System.Reflection;
 using MpptArena.Runs;
 
 namespace MpptArena.Reports.Summary;
@@ -7,8 +6,7 @@ namespace MpptArena.Reports.Summary;
 public static class SummaryBuilder
 {
     /// <summary>Version of the tool, from the assembly.</summary>
-    public static string ToolVersion =>
-        typeof(RunResult).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion.Split('+')[0] ?? "0.0.0";
+    public static string ToolVersion => ArenaVersion.Release;
 
     /// <summary>The summary of a run.</summary>
     public static RunSummary Build(RunResult run)

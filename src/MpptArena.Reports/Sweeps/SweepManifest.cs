@@ -15,6 +15,9 @@ public sealed record SweepManifest
     /// <summary>Digest of every case key of the whole sweep: shards of one sweep share it.</summary>
     public required string SweepDigest { get; init; }
 
+    /// <summary>Digest of each input the results depend on ("tool", "scenario NAME", "tracker NAME"); part of every case's identity.</summary>
+    public SortedDictionary<string, string> Inputs { get; init; } = new(StringComparer.Ordinal);
+
     /// <summary>Cases in the whole sweep.</summary>
     public required int TotalCases { get; init; }
 

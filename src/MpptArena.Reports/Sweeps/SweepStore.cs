@@ -14,8 +14,11 @@ namespace MpptArena.Reports.Sweeps;
 /// </summary>
 public static class SweepStore
 {
+    /// <summary>Name of the folder of case files inside an output folder.</summary>
+    public const string CasesFolderName = "cases";
+
     /// <summary>Folder of case files inside an output folder.</summary>
-    public static string CasesFolder(string output) => Path.Combine(output, "cases");
+    public static string CasesFolder(string output) => Path.Combine(output, CasesFolderName);
 
     /// <summary>The stored form of a finished case.</summary>
     public static SweepCaseResult ToResult(SweepCase c, RunResult run)
@@ -67,9 +70,37 @@ public static class SweepStore
         return map;
     }
 
+    /// <summary>Removes every case file whose id is not in <paramref name="keep"/> (results of inputs that changed); returns how many.</summary>
+    public static int RemoveExcept(string output, IReadOnlySet<string> keep)
+    {
+        string folder = CasesFolder(output);
+        if (!Directory.Exists(folder)) return 0;
+        int removed = 0;
+        foreach (string file in Directory.GetFiles(folder, "*.json"))
+        {
+            if (keep.Contains(Path.GetFileNameWithoutExtension(file))) continue;
+            File.Delete(file);
+            removed++;
+        }
+        return removed;
+    }
+
     /// <summary>Digest identifying the whole sweep: SHA-256 over its sorted case keys.</summary>
     public static string Digest(IReadOnlyList<SweepCase> allCases) =>
         Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(string.Join("\n", allCases.Select(c => c.Key).Order(StringComparer.Ordinal)))))[..16];
+
+    /// <summary>What differs between the inputs a manifest records and <paramref name="now"/>, in words ("scenario a changed, tracker b is new").</summary>
+    public static string DescribeChange(SweepManifest before, IReadOnlyDictionary<string, string> now)
+    {
+        var words = new List<string>();
+        foreach (var (k, v) in now)
+        {
+            if (!before.Inputs.TryGetValue(k, out string? old)) words.Add($"{k} is new");
+            else if (old != v) words.Add(k == "tool" ? $"the tool build changed ({old} -> {v})" : $"{k} changed");
+        }
+        words.AddRange(before.Inputs.Keys.Where(k => !now.ContainsKey(k)).Select(k => $"{k} is gone"));
+        return words.Count > 0 ? string.Join(", ", words) : "the cases differ (axes, settings or sampling)";
+    }
 
     /// <summary>Writes sweep.json.</summary>
     public static void WriteManifest(string output, SweepManifest manifest) =>

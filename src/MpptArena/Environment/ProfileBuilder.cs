@@ -19,6 +19,9 @@ public sealed class ProfileBuilder
     /// <summary>Time reached so far [s].</summary>
     public double TimeS => _t[^1];
 
+    /// <summary>Breakpoints so far.</summary>
+    public int Count => _t.Count;
+
     /// <summary>Value reached so far.</summary>
     public double Value => _v[^1];
 

@@ -9,8 +9,14 @@ namespace MpptArena.Scenarios;
 /// Reads a time profile: a single number (constant), or a list of segments, each a one-key mapping:
 /// start, hold_s, step, ramp, points, repeat, en50530_ramps, cloud, csv.
 /// </summary>
-internal sealed class ProfileReader(string file, string baseDirectory, List<ScoringWindow> windows)
+internal sealed class ProfileReader(string file, string baseDirectory, List<ScoringWindow> windows, List<string> sources)
 {
+    /// <summary>Most breakpoints a profile may expand to (repeats included): a day at 0.1 s resolution is 864 000.</summary>
+    public const int MaxBreakpoints = 2_000_000;
+
+    /// <summary>Longest time a profile segment may span [s]: about three years.</summary>
+    public const double MaxSegmentS = 1e8;
+
     private static readonly string[] SegmentKinds = ["start", "hold_s", "step", "ramp", "points", "repeat", "en50530_ramps", "cloud", "csv"];
 
     /// <summary>Reads the profile at <paramref name="key"/> of <paramref name="parent"/>.</summary>
@@ -50,7 +56,7 @@ internal sealed class ProfileReader(string file, string baseDirectory, List<Scor
                 else builder.Step(v);
             }
             builder ??= new ProfileBuilder(FirstValue(m, min, max));
-            if (m.Has("hold_s")) builder.Hold(m.Number("hold_s", null, 0, double.PositiveInfinity));
+            if (m.Has("hold_s")) builder.Hold(m.Number("hold_s", null, 0, MaxSegmentS));
             if (m.Has("step")) builder.Step(m.Number("step", null, min, max));
             if (m.Has("ramp")) Ramp(m, builder, min, max);
             if (m.Has("points")) Points(m, builder, min, max);
@@ -60,7 +66,14 @@ internal sealed class ProfileReader(string file, string baseDirectory, List<Scor
                 int times = r.Integer("times", null, 1, 100_000);
                 var inner = r.Sequence("segments") ?? throw r.Error(r.Required("segments", "a list of segments"), "'segments' must be a list");
                 if (depth > 8) throw r.Error(inner, "repeat is nested too deeply (more than 8 levels)");
-                for (int k = 0; k < times; k++) Append(inner, $"{r.Path}.segments", ref builder!, min, max, irradiance, depth + 1);
+                for (int k = 0; k < times; k++)
+                {
+                    Append(inner, $"{r.Path}.segments", ref builder!, min, max, irradiance, depth + 1);
+                    if (builder.Count > MaxBreakpoints)
+                    {
+                        throw r.Error(r.Node("times")!, $"the repeat expands the profile past {MaxBreakpoints} breakpoints (the limit); repeat fewer times or nest less", "times");
+                    }
+                }
             }
             if (m.Has("en50530_ramps")) StandardRamps(m, builder, irradiance);
             if (m.Has("cloud")) Cloud(m, builder, irradiance);
@@ -83,7 +96,7 @@ internal sealed class ProfileReader(string file, string baseDirectory, List<Scor
         {
             throw new ArenaInputException($"'{r.Path}' needs exactly one of 'over_s' (duration, s) or 'rate_per_s' (slope, unit per second)", "ramp", r.Location);
         }
-        if (r.Has("over_s")) b.Ramp(to, r.Number("over_s", null, 0, double.PositiveInfinity));
+        if (r.Has("over_s")) b.Ramp(to, r.Number("over_s", null, 0, MaxSegmentS));
         else b.RampAtRate(to, r.Positive("rate_per_s"));
     }
 
@@ -145,7 +158,9 @@ internal sealed class ProfileReader(string file, string baseDirectory, List<Scor
         bool skipHeader = c.Text("skip_header", "true", ["true", "false"]) == "true";
         double t0 = b.TimeS, last = double.NegativeInfinity;
         int lineNo = 0, rows = 0;
-        foreach (string line in System.IO.File.ReadLines(full))
+        string text = YamlInput.ReadText(full, "CSV file");
+        sources.Add($"csv {name} {ContentDigest.OfText(text)}");
+        foreach (string line in text.Split('\n').Select(l => l.TrimEnd('\r')))
         {
             lineNo++;
             if (lineNo == 1 && skipHeader) continue;

@@ -28,6 +28,13 @@ public sealed record Scenario(
     IReadOnlyList<TrackerSpec> Trackers,
     ScoringSettings Scoring)
 {
+    /// <summary>
+    /// Digest of everything in the scenario's own inputs that determines a result: the scenario document as
+    /// loaded and the bytes of every CSV profile it reads (<see cref="ContentDigest"/>). Tracker code has its
+    /// own digest (<see cref="Trackers.TrackerDescriptor.CodeDigest"/>).
+    /// </summary>
+    public string InputDigest { get; init; } = "";
+
     /// <summary>Array open-circuit voltage at STC [V], as firmware would be configured.</summary>
     public double NominalOpenCircuitVoltageV
     {

@@ -27,8 +27,7 @@ public static class ScenarioLoader
     /// <param name="registry">Tracker kinds that may be named.</param>
     public static Scenario Load(string path, TrackerRegistry registry)
     {
-        if (!File.Exists(path)) throw new ArenaInputException($"scenario file '{path}' not found", "file");
-        return Parse(File.ReadAllText(path), path, registry, Path.GetDirectoryName(Path.GetFullPath(path)) ?? ".");
+        return Parse(YamlInput.ReadText(path, "scenario file"), path, registry, Path.GetDirectoryName(Path.GetFullPath(path)) ?? ".");
     }
 
     /// <summary>
@@ -37,9 +36,9 @@ public static class ScenarioLoader
     /// </summary>
     public static (string Name, PvArray Array, ArrayConditions Conditions) LoadCurveSetup(string path, double atS)
     {
-        if (!File.Exists(path)) throw new ArenaInputException($"file '{path}' not found", "file");
+        string text = YamlInput.ReadText(path, "file");
         string dir = Path.GetDirectoryName(Path.GetFullPath(path)) ?? ".";
-        var top = ReadRoot(File.ReadAllText(path), path);
+        var top = ReadRoot(text, path);
         EnvironmentModel environment;
         YamlMap root;
         if (top is YamlMappingNode m && m.Children.Keys.OfType<YamlScalarNode>().Any(k => k.Value == "conditions"))
@@ -47,10 +46,10 @@ public static class ScenarioLoader
             root = new YamlMap(top, path, "plant", PlantKeys);
             var module = ReadModule(Required(root, "module", ["datasheet", "single_diode"]));
             var array = ReadArray(Required(root, "array", ArrayKeys), module);
-            environment = ReadEnvironment(Required(root, "conditions", EnvironmentKeys), array, path, dir, []);
+            environment = ReadEnvironment(Required(root, "conditions", EnvironmentKeys), array, path, dir, [], []);
             return (ReadName(root), array, Evaluate(array, environment, atS));
         }
-        var scenario = Parse(File.ReadAllText(path), path, TrackerRegistry.WithBuiltIns(), dir);
+        var scenario = Parse(text, path, TrackerRegistry.WithBuiltIns(), dir);
         return (scenario.Name, scenario.Array, Evaluate(scenario.Array, scenario.Environment, atS));
     }
 
@@ -73,23 +72,7 @@ public static class ScenarioLoader
         return name;
     }
 
-    private static YamlNode ReadRoot(string yaml, string file)
-    {
-        var stream = new YamlStream();
-        try
-        {
-            stream.Load(new StringReader(yaml));
-        }
-        catch (YamlException ex)
-        {
-            string reason = ex.InnerException?.Message ?? ex.Message;
-            int colon = reason.IndexOf("): ", StringComparison.Ordinal);
-            if (colon >= 0) reason = reason[(colon + 3)..];
-            throw new ArenaInputException($"not valid YAML: {reason}", null, new SourceLocation(file, ex.Start.Line, ex.Start.Column));
-        }
-        if (stream.Documents.Count == 0) throw new ArenaInputException("the file is empty: expected a mapping", null, new SourceLocation(file, 1, 1));
-        return stream.Documents[0].RootNode;
-    }
+    private static YamlNode ReadRoot(string yaml, string file) => YamlInput.ReadRoot(yaml, file, "a scenario mapping");
 
     /// <summary>Parses scenario text; <paramref name="file"/> is used in messages.</summary>
     public static Scenario Parse(string yaml, string file, TrackerRegistry registry, string baseDirectory = ".")
@@ -124,8 +107,9 @@ public static class ScenarioLoader
         var sensors = ReadSensors(Required(root, "sensors", ["voltage", "current"]));
         var converter = ReadConverter(Required(root, "converter", ConverterKeys), sensors);
         var windows = new List<ScoringWindow>();
+        var sources = new List<string> { $"scenario {root.Digest}" };
         var environment = ReadEnvironment(Required(root, "environment", EnvironmentKeys),
-            array, file, baseDirectory, windows);
+            array, file, baseDirectory, windows, sources);
         var simulationMap = Required(root, "simulation", ["duration_s", "plant_step_us", "environment_step_ms", "seed", "reprepare_irradiance_w_m2", "reprepare_temperature_c", "series_interval_ms"]);
         var simulation = ReadSimulation(simulationMap, environment, converter.Kind);
         var trackers = ReadTrackers(root, registry, simulationMap.Has("plant_step_us") ? simulation : null, baseDirectory);
@@ -140,7 +124,7 @@ public static class ScenarioLoader
             simulation = simulation with { PlantStepS = step, EnvironmentStepS = env };
         }
         var scoring = ReadScoring(root.Map("scoring", ["settling_band_fraction", "settling_hold_s", "static_allowance_s", "windows", "curve_snapshots_s"]), windows, simulation);
-        return new Scenario(name, description, array, converter, sensors, environment, simulation, trackers, scoring);
+        return new Scenario(name, description, array, converter, sensors, environment, simulation, trackers, scoring) { InputDigest = ContentDigest.OfParts(sources) };
     }
 
     private static YamlMap Required(YamlMap parent, string key, IReadOnlyCollection<string> allowed) =>
@@ -241,9 +225,9 @@ public static class ScenarioLoader
         };
     }
 
-    private static EnvironmentModel ReadEnvironment(YamlMap e, PvArray array, string file, string baseDir, List<ScoringWindow> windows)
+    private static EnvironmentModel ReadEnvironment(YamlMap e, PvArray array, string file, string baseDir, List<ScoringWindow> windows, List<string> sources)
     {
-        var reader = new ProfileReader(file, baseDir, windows);
+        var reader = new ProfileReader(file, baseDir, windows, sources);
         e.Required("irradiance_w_m2", "a number or a list of segments");
         var irradiance = reader.Read(e, "irradiance_w_m2", 0, 2000, irradiance: true);
         TemperatureModel temperature;

@@ -42,7 +42,22 @@ internal static class TrackerEntryReader
             var node = t.Node("library") ?? t.Node("command") ?? t.Node("type")!;
             throw t.Error(node, $"the tracker could not be started to read its parameters: {fault.Reason}{(fault.Details.Length > 0 ? $"; it wrote: {fault.Details.Split('\n')[^1]}" : "")}", "type");
         }
-        return (descriptor, limits);
+        return (descriptor with { CodeDigest = CodeDigestOf(descriptor, t, baseDirectory) }, limits);
+    }
+
+    /// <summary>A C library's or plug-in's bytes; for a command, its words and the bytes of every file they name.</summary>
+    private static string? CodeDigestOf(TrackerDescriptor d, YamlMap t, string baseDirectory)
+    {
+        if (d.Origin is TrackerOrigin.Native or TrackerOrigin.Plugin && d.OriginPath is { } path && File.Exists(path)) return ContentDigest.OfFile(path);
+        if (d.Origin != TrackerOrigin.Command) return null;
+        var words = ((YamlSequenceNode)t.Node("command")!).Children.Select(c => ((YamlScalarNode)c).Value ?? "").ToList();
+        var parts = words.Select(w => "word " + w).ToList();
+        foreach (string w in words)
+        {
+            string full = Path.IsPathRooted(w) ? w : Path.Combine(baseDirectory, w);
+            if (w.Length > 0 && File.Exists(full)) parts.Add($"file {w} {ContentDigest.OfFile(full)}");
+        }
+        return ContentDigest.OfParts(parts);
     }
 
     private static TrackerDescriptor Native(YamlMap t, string baseDirectory, IsolationMode isolation)

@@ -39,6 +39,9 @@ internal sealed class YamlMap
     /// <summary>Dotted path of the mapping in the document.</summary>
     public string Path { get; }
 
+    /// <summary>Digest of the mapping as loaded (<see cref="ContentDigest.OfYaml"/>).</summary>
+    public string Digest => ContentDigest.OfYaml(_node);
+
     /// <summary>Number of keys present.</summary>
     public int Count => _entries.Count;
 

@@ -11,11 +11,12 @@ namespace MpptArena.Sweeps;
 /// <param name="Kind">Tracker kind.</param>
 /// <param name="PeriodMs">Sample period [ms].</param>
 /// <param name="Parameters">Parameter values, sorted by name.</param>
-public sealed record SweepCase(int ScenarioIndex, string ScenarioName, string TrackerName, string Kind, double PeriodMs, IReadOnlyList<KeyValuePair<string, double>> Parameters)
+/// <param name="InputDigest">Digest of the inputs behind the case: tool build, scenario inputs, tracker code (<see cref="SweepPlanner.InputDigestOf"/>).</param>
+public sealed record SweepCase(int ScenarioIndex, string ScenarioName, string TrackerName, string Kind, double PeriodMs, IReadOnlyList<KeyValuePair<string, double>> Parameters, string InputDigest)
 {
-    /// <summary>The case's identity as text: scenario, tracker, period and parameters with round-trip numbers.</summary>
+    /// <summary>The case's identity as text: scenario, tracker, period and parameters with round-trip numbers, and the inputs' digest.</summary>
     public string Key => string.Create(CultureInfo.InvariantCulture,
-        $"{ScenarioName}|{TrackerName}|{Kind}|period_ms={PeriodMs:R}|{string.Join(",", Parameters.Select(p => $"{p.Key}={p.Value:R}"))}");
+        $"{ScenarioName}|{TrackerName}|{Kind}|period_ms={PeriodMs:R}|{string.Join(",", Parameters.Select(p => $"{p.Key}={p.Value:R}"))}|inputs={InputDigest}");
 
     /// <summary>The settings part of the key (everything but the scenario), to group a setting across scenarios.</summary>
     public string SettingKey => string.Create(CultureInfo.InvariantCulture,

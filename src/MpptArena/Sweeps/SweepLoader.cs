@@ -17,19 +17,9 @@ public static class SweepLoader
     /// <summary>Loads a sweep file.</summary>
     public static SweepDefinition Load(string path, TrackerRegistry registry)
     {
-        if (!File.Exists(path)) throw new ArenaInputException($"sweep file '{path}' not found", "file");
         string dir = Path.GetDirectoryName(Path.GetFullPath(path)) ?? ".";
-        var stream = new YamlStream();
-        try
-        {
-            stream.Load(new StringReader(File.ReadAllText(path)));
-        }
-        catch (YamlDotNet.Core.YamlException ex)
-        {
-            throw new ArenaInputException($"not valid YAML: {ex.InnerException?.Message ?? ex.Message}", null, new SourceLocation(path, ex.Start.Line, ex.Start.Column));
-        }
-        if (stream.Documents.Count == 0) throw new ArenaInputException("the file is empty: expected a sweep mapping", null, new SourceLocation(path, 1, 1));
-        var root = new YamlMap(stream.Documents[0].RootNode, path, "sweep", TopKeys);
+        var rootNode = YamlInput.ReadRoot(YamlInput.ReadText(path, "sweep file"), path, "a sweep mapping");
+        var root = new YamlMap(rootNode, path, "sweep", TopKeys);
         string name = root.Text("name");
         if (name.Length == 0 || name.Any(c => !(char.IsAsciiLetterOrDigit(c) || c is '-' or '_')))
         {

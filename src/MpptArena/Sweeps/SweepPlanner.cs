@@ -19,7 +19,7 @@ public static class SweepPlanner
                     .OrderBy(kv => kv.Key, StringComparer.Ordinal).ToList();
                 for (int s = 0; s < sweep.Scenarios.Count; s++)
                 {
-                    cases.Add(new SweepCase(s, sweep.Scenarios[s].Name, tracker.Name, tracker.Descriptor.Kind, period, parameters));
+                    cases.Add(new SweepCase(s, sweep.Scenarios[s].Name, tracker.Name, tracker.Descriptor.Kind, period, parameters, InputDigestOf(sweep.Scenarios[s], tracker)));
                 }
             }
         }
@@ -29,6 +29,22 @@ public static class SweepPlanner
             throw new ArenaInputException($"the sweep names the same case twice ({duplicate.First().Key}); give trackers distinct names or settings", "trackers");
         }
         return cases;
+    }
+
+    /// <summary>Digest of what a case's result depends on besides its settings: the tool build, the scenario's inputs, the tracker's code.</summary>
+    public static string InputDigestOf(Scenarios.Scenario scenario, SweepTracker tracker) =>
+        Scenarios.ContentDigest.OfParts([ArenaVersion.Build, scenario.InputDigest, tracker.Descriptor.CodeDigest ?? "built-in"]);
+
+    /// <summary>
+    /// The named inputs of a sweep and their digests ("tool", "scenario NAME", "tracker NAME"), so that a
+    /// changed one can be named.
+    /// </summary>
+    public static SortedDictionary<string, string> Inputs(SweepDefinition sweep)
+    {
+        var d = new SortedDictionary<string, string>(StringComparer.Ordinal) { ["tool"] = ArenaVersion.Build };
+        foreach (var s in sweep.Scenarios) d[$"scenario {s.Name}"] = s.InputDigest;
+        foreach (var t in sweep.Trackers) d[$"tracker {t.Name}"] = t.Descriptor.CodeDigest ?? "built-in";
+        return d;
     }
 
     /// <summary>The cases of shard <paramref name="shard"/> of <paramref name="shardCount"/> (1-based).</summary>

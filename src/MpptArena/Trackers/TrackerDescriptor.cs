@@ -24,6 +24,12 @@ public sealed record TrackerDescriptor(
     /// <summary>Where its instances run.</summary>
     public IsolationMode Isolation { get; init; } = IsolationMode.InProcess;
 
+    /// <summary>
+    /// Digest of the tracker's code outside the arena (a C library's or plug-in's bytes, a command and the files
+    /// it names), or null for a built-in, whose code is the tool version's.
+    /// </summary>
+    public string? CodeDigest { get; init; }
+
     /// <summary>True for a user's code that runs inside the arena: its calls are watched, since they cannot be stopped.</summary>
     public bool IsUserCodeInProcess => Origin != TrackerOrigin.BuiltIn && Isolation == IsolationMode.InProcess;
 }

@@ -85,10 +85,11 @@ public class SweepTests
         string dir = CliProcess.TempFolder();
         string sweep = SmallSweep(dir);
         Assert.Equal(0, CliProcess.Run(dir, "sweep", sweep, "--out", "full", "--no-plots").Exit);
-        // An interrupted run: the manifest, half the case files, a truncated file and a stray temporary file.
+        // An interrupted run: the arena's mark and manifest, half the case files, a truncated file and a stray temporary file.
         string cut = Path.Combine(dir, "cut", "cases");
         Directory.CreateDirectory(cut);
         File.Copy(Path.Combine(dir, "full", "sweep.json"), Path.Combine(dir, "cut", "sweep.json"));
+        File.Copy(Path.Combine(dir, "full", "mppt-arena-output.json"), Path.Combine(dir, "cut", "mppt-arena-output.json"));
         var files = Directory.GetFiles(Path.Combine(dir, "full", "cases")).Order(StringComparer.Ordinal).ToList();
         foreach (string f in files.Take(files.Count / 2)) File.Copy(f, Path.Combine(cut, Path.GetFileName(f)));
         string truncated = files[^1];
