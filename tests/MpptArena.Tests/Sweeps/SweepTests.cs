@@ -102,6 +102,33 @@ public class SweepTests
     }
 
     [Fact]
+    public void AChangedInputRerunsTheCasesItAffectsAndShardsOfOtherInputsDoNotMerge()
+    {
+        string dir = CliProcess.TempFolder();
+        string sweep = SmallSweep(dir);
+        Assert.Equal(0, CliProcess.Run(dir, "sweep", sweep, "--out", "kept", "--no-plots").Exit);
+        Assert.Equal(0, CliProcess.Run(dir, "sweep", sweep, "--out", "old-shard1", "--shard", "1/2", "--no-plots").Exit);
+        string b = Path.Combine(dir, "b.yaml");
+        File.WriteAllText(b, File.ReadAllText(b).Replace("seed: 5", "seed: 6"));
+
+        var resumed = CliProcess.Run(dir, "sweep", sweep, "--out", "kept", "--no-plots");
+        Assert.True(resumed.Exit == 0, resumed.Err);
+        Assert.Contains("scenario shade-case changed", resumed.Out);
+        Assert.Contains("8 already done, running 8", resumed.Out);
+        Assert.Equal(0, CliProcess.Run(dir, "sweep", sweep, "--out", "fresh", "--no-plots").Exit);
+        foreach (var (x, y) in Deterministic(Path.Combine(dir, "fresh")).Zip(Deterministic(Path.Combine(dir, "kept")))) Assert.True(x.Bytes.SequenceEqual(y.Bytes), $"{x.Name} is stale after the input changed");
+
+        Assert.Equal(0, CliProcess.Run(dir, "sweep", sweep, "--out", "new-shard2", "--shard", "2/2", "--no-plots").Exit);
+        var mixed = CliProcess.Run(dir, "merge", "old-shard1", "new-shard2", "--out", "merged");
+        Assert.Equal(2, mixed.Exit);
+        Assert.Contains("scenario shade-case changed", mixed.Err);
+        var ontoInput = CliProcess.Run(dir, "merge", "old-shard1", "new-shard2", "--out", "old-shard1");
+        Assert.Equal(2, ontoInput.Exit);
+        Assert.Contains("shard folder", ontoInput.Err);
+        Assert.False(Directory.Exists(Path.Combine(dir, "merged")));
+    }
+
+    [Fact]
     public void TunerFindsTheKnownOptimumOfASyntheticObjective()
     {
         // f(x, y) = (x - 1.3)^2 + 2 (y + 0.4)^2 has its minimum 0 at (1.3, -0.4), inside the box.
