@@ -59,6 +59,12 @@ internal static class Program
             StandardOutput.Error.WriteLine($"error: {ex.Message}");
             return ExitCodes.BadInput;
         }
+        catch (AggregateException ex) when (ex.Flatten().InnerExceptions is [ArenaInputException first, ..] inner && inner.All(e => e is ArenaInputException))
+        {
+            // Work done in parallel (sweep cases) met bad input: report it as such, once.
+            StandardOutput.Error.WriteLine($"error: {first.Message}");
+            return ExitCodes.BadInput;
+        }
         catch (Exception ex) when (System.Environment.GetEnvironmentVariable("MPPT_ARENA_DEBUG") is null)
         {
             StandardOutput.Error.WriteLine($"internal error: {ex.GetType().Name}: {ex.Message} (set MPPT_ARENA_DEBUG=1 for details, and please report it)");

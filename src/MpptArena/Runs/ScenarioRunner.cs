@@ -203,7 +203,7 @@ public sealed class ScenarioRunner
         var kind = tracker.CommandKind;
         if (!frontEnd.Accepts(kind))
         {
-            throw new ArenaInputException($"tracker '{spec.Name}' commands a {kind}, which the {scenario.Converter.Kind} front end does not accept; use a boost or buck converter", "converter");
+            throw new ArenaInputException($"tracker '{spec.Name}' commands {Scenarios.TrackerEntryReader.Describe(kind)}, which the {Scenarios.TrackerEntryReader.ConverterName(scenario.Converter.Kind)} converter does not take; use a boost or buck converter", "converter");
         }
         var (min, max) = frontEnd.CommandRange(kind);
         if (!SimulationSettings.IsWholeNumberOfSteps(spec.SamplePeriodS, h))

@@ -19,6 +19,25 @@ public sealed record SimulationSettings(
     double ReprepareTemperatureC = 0.2,
     double SeriesIntervalS = 0.01)
 {
+    /// <summary>True when the scenario set the plant step; false when it is chosen for the trackers' periods (<see cref="WithStepsFor"/>).</summary>
+    public bool PlantStepGiven { get; init; } = true;
+
+    /// <summary>True when the scenario set the environment step; false when it follows the plant step.</summary>
+    public bool EnvironmentStepGiven { get; init; } = true;
+
+    /// <summary>
+    /// These settings with the plant step chosen for trackers of the given periods when the scenario left it
+    /// out: a step that divides every period (and the environment step when one is given); without one the
+    /// environment is evaluated every plant step, but at least every millisecond. Unchanged when the step was given.
+    /// </summary>
+    public SimulationSettings WithStepsFor(FrontEndKind frontEnd, IEnumerable<double> samplePeriodsS)
+    {
+        if (PlantStepGiven) return this;
+        var periods = EnvironmentStepGiven ? samplePeriodsS.Append(EnvironmentStepS) : samplePeriodsS;
+        double step = DefaultPlantStepS(frontEnd, periods);
+        return this with { PlantStepS = step, EnvironmentStepS = EnvironmentStepGiven ? EnvironmentStepS : Math.Max(1e-3, step) };
+    }
+
     /// <summary>
     /// Largest default step [s] per front end: 10 ms for the ideal source (its lag is integrated exactly
     /// and its energy by Gauss-Legendre quadrature along the exact trajectory, so a step may be a whole

@@ -65,9 +65,9 @@ public static class ScenarioLoader
     private static string ReadName(YamlMap root)
     {
         string name = root.Text("name");
-        if (name.Length == 0 || name.Any(c => !(char.IsAsciiLetterOrDigit(c) || c is '-' or '_')))
+        if (name.Length == 0 || name.Length > TrackerEntryReader.MaxNameLength || name.Any(c => !(char.IsAsciiLetterOrDigit(c) || c is '-' or '_')))
         {
-            throw root.Error(root.Node("name")!, $"'name' = '{name}' must use only letters, digits, '-' and '_' (it names the results folder)", "name");
+            throw root.Error(root.Node("name")!, $"'name' = '{(name.Length > 80 ? name[..80] + "..." : name)}' must be 1 to {TrackerEntryReader.MaxNameLength} letters, digits, '-' and '_' (it names the results folder)", "name");
         }
         return name;
     }
@@ -112,17 +112,9 @@ public static class ScenarioLoader
             array, file, baseDirectory, windows, sources);
         var simulationMap = Required(root, "simulation", ["duration_s", "plant_step_us", "environment_step_ms", "seed", "reprepare_irradiance_w_m2", "reprepare_temperature_c", "series_interval_ms"]);
         var simulation = ReadSimulation(simulationMap, environment, converter.Kind);
-        var trackers = ReadTrackers(root, registry, simulationMap.Has("plant_step_us") ? simulation : null, baseDirectory);
-        if (!simulationMap.Has("plant_step_us"))
-        {
-            // A step that divides every tracker period (and the environment step when one is given); without
-            // one the environment is evaluated every plant step, but at least every millisecond.
-            var periods = trackers.Select(t => t.SamplePeriodS);
-            if (simulationMap.Has("environment_step_ms")) periods = periods.Append(simulation.EnvironmentStepS);
-            double step = SimulationSettings.DefaultPlantStepS(converter.Kind, periods);
-            double env = simulationMap.Has("environment_step_ms") ? simulation.EnvironmentStepS : Math.Max(1e-3, step);
-            simulation = simulation with { PlantStepS = step, EnvironmentStepS = env };
-        }
+        var trackers = ReadTrackers(root, registry, simulationMap.Has("plant_step_us") ? simulation : null, baseDirectory, converter);
+        simulation = (simulation with { PlantStepGiven = simulationMap.Has("plant_step_us"), EnvironmentStepGiven = simulationMap.Has("environment_step_ms") })
+            .WithStepsFor(converter.Kind, trackers.Select(t => t.SamplePeriodS));
         var scoring = ReadScoring(root.Map("scoring", ["settling_band_fraction", "settling_hold_s", "static_allowance_s", "windows", "curve_snapshots_s"]), windows, simulation);
         return new Scenario(name, description, array, converter, sensors, environment, simulation, trackers, scoring) { InputDigest = ContentDigest.OfParts(sources) };
     }
@@ -270,7 +262,7 @@ public static class ScenarioLoader
             s.Positive("reprepare_temperature_c", d.ReprepareTemperatureC), s.Number("series_interval_ms", d.SeriesIntervalS * 1e3, 0) * 1e-3);
     }
 
-    private static IReadOnlyList<TrackerSpec> ReadTrackers(YamlMap root, TrackerRegistry registry, SimulationSettings? givenStep, string baseDirectory)
+    private static IReadOnlyList<TrackerSpec> ReadTrackers(YamlMap root, TrackerRegistry registry, SimulationSettings? givenStep, string baseDirectory, ConverterSettings converter)
     {
         var seq = root.Sequence("trackers") ?? throw new ArenaInputException("missing required list 'trackers' in 'scenario'", "trackers", root.Location);
         if (seq.Children.Count == 0) throw root.Error(seq, "'trackers' is empty: name at least one tracker", "trackers");
@@ -281,7 +273,7 @@ public static class ScenarioLoader
             var t = new YamlMap(item, root.File, $"scenario.trackers[{index++}]", ["name", "period_ms", "parameters", .. TrackerEntryReader.Keys]);
             var (descriptor, limits) = TrackerEntryReader.Read(t, baseDirectory, registry);
             string kind = t.Text("type");
-            string name = t.Text("name", kind);
+            string name = TrackerEntryReader.ReadName(t, kind);
             if (specs.Any(s => s.Name == name)) throw t.Error(t.Node("name") ?? item, $"tracker name '{name}' is used twice; names must be unique", "name");
             double periodS = t.Number("period_ms", 10, 0.001, 3_600_000) * 1e-3;
             if (givenStep is { } sim && !SimulationSettings.IsWholeNumberOfSteps(periodS, sim.PlantStepS))
@@ -298,6 +290,7 @@ public static class ScenarioLoader
                 }
             }
             var settings = new TrackerSettings(descriptor.Parameters, given);
+            TrackerEntryReader.CheckCommandKind(t, descriptor, settings, converter);
             specs.Add(new TrackerSpec(name, descriptor, settings, periodS) { Limits = limits });
         }
         return specs;

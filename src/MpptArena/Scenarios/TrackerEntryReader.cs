@@ -60,6 +60,51 @@ internal static class TrackerEntryReader
         return ContentDigest.OfParts(parts);
     }
 
+    /// <summary>Longest tracker or scenario name: it becomes part of file names.</summary>
+    public const int MaxNameLength = 64;
+
+    /// <summary>A tracker's name (default: its type): letters, digits, '-', '_' and '.', not starting with '.', at most <see cref="MaxNameLength"/> characters, since it names files (series-NAME.csv, logs/NAME.log).</summary>
+    public static string ReadName(YamlMap t, string kind)
+    {
+        string name = t.Text("name", kind);
+        var node = t.Node("name") ?? t.Node("type")!;
+        if (name.Length == 0 || name.Length > MaxNameLength || name[0] == '.' || name.Any(c => !(char.IsAsciiLetterOrDigit(c) || c is '-' or '_' or '.')))
+        {
+            throw t.Error(node, $"tracker name '{(name.Length > 80 ? name[..80] + "..." : name)}' must be 1 to {MaxNameLength} letters, digits, '-', '_' or '.', not starting with '.' (it names the tracker's files in the results folder)", "name");
+        }
+        return name;
+    }
+
+    /// <summary>
+    /// Refuses, with the entry's position, a tracker whose command the converter does not take (a duty cycle on
+    /// the ideal source). The command kind is what an isolated tracker declared when its host started, or that of
+    /// a built-in instance; a user's in-process code is checked when the run creates it.
+    /// </summary>
+    public static void CheckCommandKind(YamlMap t, TrackerDescriptor d, TrackerSettings settings, Plant.ConverterSettings converter, string? scenarioName = null)
+    {
+        var kind = d.DeclaredCommandKind;
+        if (kind is null && d.Origin == TrackerOrigin.BuiltIn)
+        {
+            var probe = d.Create(settings);
+            kind = probe.CommandKind;
+            (probe as IDisposable)?.Dispose();
+        }
+        if (kind is not { } k || Runs.ScenarioRunner.CreateFrontEnd(converter).Accepts(k)) return;
+        string where = scenarioName is null ? "the scenario's" : $"scenario '{scenarioName}' has an";
+        throw t.Error(t.Node("type")!, $"'{t.Text("type")}' commands {Describe(k)}, and {where} {ConverterName(converter.Kind)} converter takes only {Describe(Trackers.TrackerCommandKind.VoltageReference)}: use 'converter: {{ type: boost }}' or 'buck' for a duty-cycle tracker", "type");
+    }
+
+    /// <summary>A command kind in words.</summary>
+    public static string Describe(TrackerCommandKind kind) => kind == TrackerCommandKind.DutyCycle ? "a duty cycle" : "a PV voltage reference";
+
+    /// <summary>A converter kind as the scenario file spells it.</summary>
+    public static string ConverterName(Plant.FrontEndKind kind) => kind switch
+    {
+        Plant.FrontEndKind.IdealSource => "ideal_source",
+        Plant.FrontEndKind.Boost => "boost",
+        _ => "buck",
+    };
+
     private static TrackerDescriptor Native(YamlMap t, string baseDirectory, IsolationMode isolation)
     {
         var node = t.Required("library", "the path of a C tracker library (.so, .dylib, .dll)");

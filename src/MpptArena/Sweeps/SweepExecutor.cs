@@ -10,13 +10,14 @@ namespace MpptArena.Sweeps;
 /// </summary>
 public static class SweepExecutor
 {
-    /// <summary>The scenario of a case: the suite's scenario with only the case's tracker.</summary>
+    /// <summary>The scenario of a case: the suite's scenario with only the case's tracker (and, where the scenario leaves the plant step out, a step chosen for its period).</summary>
     public static Scenario ScenarioFor(SweepDefinition sweep, SweepCase c)
     {
         var tracker = sweep.Trackers.First(t => t.Name == c.TrackerName);
         var settings = new TrackerSettings(tracker.Descriptor.Parameters, c.Parameters.ToDictionary(kv => kv.Key, kv => kv.Value));
         var spec = new TrackerSpec(c.TrackerName, tracker.Descriptor, settings, c.PeriodMs * 1e-3) { Limits = tracker.Limits };
-        return sweep.Scenarios[c.ScenarioIndex] with { Trackers = [spec] };
+        var scenario = sweep.Scenarios[c.ScenarioIndex];
+        return scenario with { Trackers = [spec], Simulation = scenario.Simulation.WithStepsFor(scenario.Converter.Kind, [spec.SamplePeriodS]) };
     }
 
     /// <summary>Runs one case.</summary>

@@ -1,4 +1,5 @@
 using MpptArena.Numerics;
+using MpptArena.Runs;
 using MpptArena.Scenarios;
 using MpptArena.Trackers;
 using YamlDotNet.RepresentationModel;
@@ -21,9 +22,9 @@ public static class SweepLoader
         var rootNode = YamlInput.ReadRoot(YamlInput.ReadText(path, "sweep file"), path, "a sweep mapping");
         var root = new YamlMap(rootNode, path, "sweep", TopKeys);
         string name = root.Text("name");
-        if (name.Length == 0 || name.Any(c => !(char.IsAsciiLetterOrDigit(c) || c is '-' or '_')))
+        if (name.Length == 0 || name.Length > TrackerEntryReader.MaxNameLength || name.Any(c => !(char.IsAsciiLetterOrDigit(c) || c is '-' or '_')))
         {
-            throw root.Error(root.Node("name")!, $"'name' = '{name}' must use only letters, digits, '-' and '_'", "name");
+            throw root.Error(root.Node("name")!, $"'name' = '{(name.Length > 80 ? name[..80] + "..." : name)}' must be 1 to {TrackerEntryReader.MaxNameLength} letters, digits, '-' and '_' (it names the results folder)", "name");
         }
         if (root.Sequence("plugins") is { } plugins)
         {
@@ -42,8 +43,8 @@ public static class SweepLoader
             }
         }
         var scenarios = ReadScenarios(root, dir, registry);
-        var trackers = ReadTrackers(root, dir, registry);
         var sampling = ReadSampling(root);
+        var trackers = ReadTrackers(root, dir, registry, scenarios, sampling.Method != SweepSamplingMethod.Grid);
         string objective = root.Text("objective", "tracking_efficiency");
         string? hx = null, hy = null;
         if (root.Map("heatmap", ["x", "y"]) is { } h)
@@ -78,7 +79,7 @@ public static class SweepLoader
     private static bool IsPlantFile(string file) =>
         File.ReadLines(file).Any(l => l.StartsWith("conditions:", StringComparison.Ordinal));
 
-    private static List<SweepTracker> ReadTrackers(YamlMap root, string dir, TrackerRegistry registry)
+    private static List<SweepTracker> ReadTrackers(YamlMap root, string dir, TrackerRegistry registry, IReadOnlyList<Scenario> scenarios, bool sampled)
     {
         var seq = root.Sequence("trackers") ?? throw new ArenaInputException("missing required list 'trackers' in 'sweep'", "trackers", root.Location);
         var list = new List<SweepTracker>();
@@ -88,35 +89,47 @@ public static class SweepLoader
             var t = new YamlMap(item, root.File, $"sweep.trackers[{index++}]", ["name", "period_ms", "parameters", .. TrackerEntryReader.Keys]);
             var (descriptor, limits) = TrackerEntryReader.Read(t, dir, registry);
             string kind = t.Text("type");
-            string name = t.Text("name", kind);
+            string name = TrackerEntryReader.ReadName(t, kind);
             if (list.Any(x => x.Name == name)) throw t.Error(t.Node("name") ?? item, $"tracker name '{name}' is used twice", "name");
             var axes = new List<SweepAxis>();
             var fixedValues = new Dictionary<string, double>(StringComparer.Ordinal);
             double period = 10;
             if (t.Node("period_ms") is { } pn)
             {
-                var axis = ReadAxis(t, pn, "period_ms", 0.001, 3_600_000);
+                // Sample periods are always choices: a period must be a whole number of plant steps, so random and
+                // Latin-hypercube sampling pick among the listed (or stepped) values instead of drawing from a range.
+                var axis = ReadAxis(t, pn, "period_ms", 0.001, 3_600_000, sampled: false) with { IsChoice = true };
                 if (axis.Values.Count == 1 && axis.Min == axis.Max) period = axis.Values[0];
                 else axes.Add(axis);
+                foreach (var sc in scenarios.Where(sc => sc.Simulation.PlantStepGiven))
+                {
+                    double step = sc.Simulation.PlantStepS;
+                    foreach (double v in axis.Values.Where(v => !SimulationSettings.IsWholeNumberOfSteps(v * 1e-3, step)))
+                    {
+                        throw t.Error(pn, $"'period_ms' = {v:0.###} is not a whole number of the plant steps of scenario '{sc.Name}' ({step * 1e6:0.###} us); use multiples of it, or leave plant_step_us out of the scenario to have a step chosen per case", "period_ms");
+                    }
+                }
             }
             if (t.Node("parameters") is { } paramsNode)
             {
                 var pm = new YamlMap(paramsNode, root.File, $"{t.Path}.parameters", descriptor.Parameters.Select(p => p.Name).ToArray());
                 foreach (var p in descriptor.Parameters.Where(p => pm.Has(p.Name)))
                 {
-                    var axis = ReadAxis(pm, pm.Node(p.Name)!, p.Name, p.Min, p.Max);
+                    var axis = ReadAxis(pm, pm.Node(p.Name)!, p.Name, p.Min, p.Max, sampled);
                     if (axis.Values.Count == 1 && axis.Min == axis.Max) fixedValues[p.Name] = axis.Values[0];
                     else axes.Add(axis);
                 }
             }
+            var probeSettings = new TrackerSettings(descriptor.Parameters, fixedValues);
+            foreach (var sc in scenarios) TrackerEntryReader.CheckCommandKind(t, descriptor, probeSettings, sc.Converter, sc.Name);
             list.Add(new SweepTracker(name, descriptor, fixedValues, axes, period) { Limits = limits });
         }
         if (list.Count == 0) throw root.Error(seq, "'trackers' is empty", "trackers");
         return list;
     }
 
-    /// <summary>A number, a list, {from, to, step} or {log_from, log_to, count}.</summary>
-    private static SweepAxis ReadAxis(YamlMap parent, YamlNode node, string name, double min, double max)
+    /// <summary>A number, a list (choices), {from, to, step}, {from, to} when sampled (a range) or {log_from, log_to, count}.</summary>
+    private static SweepAxis ReadAxis(YamlMap parent, YamlNode node, string name, double min, double max, bool sampled)
     {
         string range = $"expected values from {min} to {max}";
         double Check(YamlNode n, double v) => v >= min && v <= max ? v : throw parent.Error(n, $"'{name}' value {v} is outside its declared range: {range}", name);
@@ -131,15 +144,17 @@ public static class SweepLoader
             {
                 var values = seq.Children.Select(n => Check(n, parent.ParseNumber(n, name, "a number"))).Distinct().Order().ToList();
                 if (values.Count == 0) throw parent.Error(node, $"'{name}' is an empty list", name);
-                return new SweepAxis(name, values, values[0], values[^1], false);
+                return new SweepAxis(name, values, values[0], values[^1], false) { IsChoice = true };
             }
             default:
             {
                 var m = new YamlMap(node, parent.File, $"{parent.Path}.{name}", ["from", "to", "step", "log_from", "log_to", "count"]);
                 if (m.Has("from"))
                 {
-                    double from = Check(m.Node("from")!, m.Number("from")), to = Check(m.Node("to") ?? node, m.Number("to")), step = m.Positive("step");
+                    double from = Check(m.Node("from")!, m.Number("from")), to = Check(m.Node("to") ?? node, m.Number("to"));
                     if (to < from) throw m.Error(m.Node("to")!, "'to' must not be below 'from'", "to");
+                    if (sampled && !m.Has("step")) return new SweepAxis(name, [from, to], from, to, false);
+                    double step = m.Positive("step");
                     int n = (int)Math.Floor((to - from) / step + 1e-9) + 1;
                     if (n > 100_000) throw m.Error(m.Node("step")!, $"the range has {n} values; use a larger step", "step");
                     var values = Enumerable.Range(0, n).Select(k => Math.Round(from + k * step, 12)).ToList();

@@ -12,8 +12,11 @@ public static class SweepPlanner
         for (int t = 0; t < sweep.Trackers.Count; t++)
         {
             var tracker = sweep.Trackers[t];
+            var seen = new HashSet<string>(StringComparer.Ordinal);
             foreach (var setting in Settings(tracker, sweep.Sampling, t))
             {
+                // Sampling among choices can draw a setting twice; it is one case.
+                if (!seen.Add(string.Join(",", setting.OrderBy(kv => kv.Key, StringComparer.Ordinal).Select(kv => $"{kv.Key}={kv.Value:R}")))) continue;
                 double period = setting.TryGetValue("period_ms", out double p) ? p : tracker.PeriodMs;
                 var parameters = tracker.Fixed.Concat(setting.Where(kv => kv.Key != "period_ms"))
                     .OrderBy(kv => kv.Key, StringComparer.Ordinal).ToList();

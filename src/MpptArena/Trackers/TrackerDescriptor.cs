@@ -30,6 +30,9 @@ public sealed record TrackerDescriptor(
     /// </summary>
     public string? CodeDigest { get; init; }
 
+    /// <summary>What the kind's instances command, when known without creating one (an isolated tracker says so when its host starts).</summary>
+    public TrackerCommandKind? DeclaredCommandKind { get; init; }
+
     /// <summary>True for a user's code that runs inside the arena: its calls are watched, since they cannot be stopped.</summary>
     public bool IsUserCodeInProcess => Origin != TrackerOrigin.BuiltIn && Isolation == IsolationMode.InProcess;
 }

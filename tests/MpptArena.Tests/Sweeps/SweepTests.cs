@@ -149,7 +149,7 @@ public class SweepTests
         string dir = CliProcess.TempFolder();
         SmallSweep(dir);
         string file = Path.Combine(dir, "lhs.yaml");
-        File.WriteAllText(file, "name: lhs\nscenarios: [a.yaml]\ntrackers:\n  - name: po\n    type: perturb_observe\n    parameters:\n      step_v: { from: 1, to: 5, step: 1 }\n      start_fraction: [0.6, 0.9]\nsampling: { method: latin_hypercube, count: 8, seed: 3 }\n");
+        File.WriteAllText(file, "name: lhs\nscenarios: [a.yaml]\ntrackers:\n  - name: po\n    type: perturb_observe\n    parameters:\n      step_v: { from: 1, to: 5, step: 1 }\n      start_fraction: { from: 0.6, to: 0.9 }\nsampling: { method: latin_hypercube, count: 8, seed: 3 }\n");
         var cases = SweepPlanner.Cases(Load(file));
         Assert.Equal(8, cases.Count);
         foreach (var (name, lo, hi) in new[] { ("step_v", 1.0, 5.0), ("start_fraction", 0.6, 0.9) })
@@ -157,6 +157,23 @@ public class SweepTests
             var strata = cases.Select(c => (int)Math.Floor((c.Parameters.First(p => p.Key == name).Value - lo) / (hi - lo) * 8)).Order().ToList();
             Assert.Equal(Enumerable.Range(0, 8), strata);
         }
+    }
+
+    [Fact]
+    public void SampledListsAndPeriodsAreChoicesNotRanges()
+    {
+        // A list names the values to try (common practice for sweep files); a sample period must also stay a
+        // whole number of plant steps, so random sampling picks among the listed periods.
+        string dir = CliProcess.TempFolder();
+        SmallSweep(dir);
+        string file = Path.Combine(dir, "choices.yaml");
+        File.WriteAllText(file, "name: choices\nscenarios: [a.yaml]\ntrackers:\n  - name: po\n    type: perturb_observe\n    period_ms: [10, 20, 40]\n    parameters:\n      step_v: { from: 1, to: 5 }\n      start_fraction: [0.6, 0.9]\nsampling: { method: random, count: 30, seed: 4 }\n");
+        var cases = SweepPlanner.Cases(Load(file));
+        Assert.Equal(30, cases.Count);
+        Assert.All(cases, c => Assert.Contains(c.PeriodMs, new[] { 10.0, 20.0, 40.0 }));
+        Assert.All(cases, c => Assert.Contains(c.Parameters.First(p => p.Key == "start_fraction").Value, new[] { 0.6, 0.9 }));
+        Assert.Equal(3, cases.Select(c => c.PeriodMs).Distinct().Count());
+        Assert.True(cases.Select(c => c.Parameters.First(p => p.Key == "step_v").Value).Distinct().Count() > 20, "a {from, to} range is drawn from continuously");
     }
 
     [Fact]

@@ -19,6 +19,7 @@ public static class IsolatedTrackers
             Origin = origin,
             OriginPath = originPath,
             Isolation = IsolationMode.Process,
+            DeclaredCommandKind = hello.CommandKind,
         };
     }
 }
