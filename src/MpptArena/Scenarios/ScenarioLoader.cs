@@ -106,6 +106,7 @@ public static class ScenarioLoader
         var array = ReadArray(Required(root, "array", ArrayKeys), module);
         var sensors = ReadSensors(Required(root, "sensors", ["voltage", "current"]));
         var converter = ReadConverter(Required(root, "converter", ConverterKeys), sensors);
+        CheckPlant(root, array, converter, sensors);
         var windows = new List<ScoringWindow>();
         var sources = new List<string> { $"scenario {root.Digest}" };
         var environment = ReadEnvironment(Required(root, "environment", EnvironmentKeys),
@@ -171,17 +172,61 @@ public static class ScenarioLoader
 
     private static AdcChannelSettings ReadAdc(YamlMap c, string unit)
     {
-        return new AdcChannelSettings(c.Integer("bits", 12, 4, 24), c.Positive($"full_scale_{unit}"), c.Number("gain_error", 0, -0.5, 0.5),
-            c.Number($"offset_{unit}", 0), c.Number($"noise_rms_{unit}", 0, 0), c.Integer("averaging_samples", 1, 1, 10_000),
-            c.Number("averaging_window_us", 0, 0) * 1e-6);
+        double fullScale = c.Positive($"full_scale_{unit}", null, unit == "v" ? MaxVoltageV : MaxCurrentA);
+        return new AdcChannelSettings(c.Integer("bits", 12, 4, 24), fullScale, c.Number("gain_error", 0, -0.5, 0.5),
+            c.Number($"offset_{unit}", 0, -fullScale, fullScale), c.Number($"noise_rms_{unit}", 0, 0, fullScale), c.Integer("averaging_samples", 1, 1, 10_000),
+            c.Number("averaging_window_us", 0, 0, 1e7) * 1e-6);
     }
+
+    private static readonly string[] VoltageSensorKeys = ["bits", "gain_error", "averaging_samples", "averaging_window_us", "full_scale_v", "offset_v", "noise_rms_v"];
+    private static readonly string[] CurrentSensorKeys = ["bits", "gain_error", "averaging_samples", "averaging_window_us", "full_scale_a", "offset_a", "noise_rms_a"];
 
     private static SensorSettings ReadSensors(YamlMap s)
     {
-        string[] common = ["bits", "gain_error", "averaging_samples", "averaging_window_us"];
-        var v = s.Map("voltage", [.. common, "full_scale_v", "offset_v", "noise_rms_v"]) ?? throw new ArenaInputException("missing required section 'voltage' in 'scenario.sensors'", "voltage", s.Location);
-        var i = s.Map("current", [.. common, "full_scale_a", "offset_a", "noise_rms_a"]) ?? throw new ArenaInputException("missing required section 'current' in 'scenario.sensors'", "current", s.Location);
+        var v = s.Map("voltage", VoltageSensorKeys) ?? throw new ArenaInputException("missing required section 'voltage' in 'scenario.sensors'", "voltage", s.Location);
+        var i = s.Map("current", CurrentSensorKeys) ?? throw new ArenaInputException("missing required section 'current' in 'scenario.sensors'", "current", s.Location);
         return new SensorSettings(ReadAdc(v, "v"), ReadAdc(i, "a"));
+    }
+
+    /// <summary>Highest voltage any scenario value may name [V]: well above the 1500 V DC of the largest PV systems.</summary>
+    private const double MaxVoltageV = 10_000;
+
+    /// <summary>Highest current any scenario value may name [A].</summary>
+    private const double MaxCurrentA = 10_000;
+
+    /// <summary>
+    /// Refuses plants that cannot track at all, naming the fix: sensors that clip below the array's STC
+    /// open-circuit voltage or short-circuit current, a boost whose bus is not above the STC MPP voltage
+    /// (a boost only steps up), a buck whose battery is not below it (a buck only steps down).
+    /// </summary>
+    private static void CheckPlant(YamlMap root, PvArray array, ConverterSettings converter, SensorSettings sensors)
+    {
+        var inv = System.Globalization.CultureInfo.InvariantCulture;
+        var module = array.Module.Reference;
+        int series = array.Layout.ModulesPerString;
+        double voc = SingleDiodeModel.OpenCircuitVoltageV(module) * series;
+        double isc = SingleDiodeModel.ShortCircuitCurrentA(module) * array.Layout.StringsInParallel;
+        double vmp = SingleDiodeModel.MaximumPowerPoint(module).VoltageV * series;
+        var sensorMap = root.Map("sensors", ["voltage", "current"])!;
+        var converterMap = root.Map("converter", ConverterKeys)!;
+        if (sensors.Voltage.FullScale < voc)
+        {
+            var m = sensorMap.Map("voltage", VoltageSensorKeys)!;
+            throw m.Error(m.Node("full_scale_v")!, string.Format(inv, "the voltage sensor's full scale {0:0.#} V is below the array's open-circuit voltage at STC, {1:0.#} V: readings above it clip and no tracker can see the curve; set full_scale_v to at least {1:0.#} V (cold cells go higher)", sensors.Voltage.FullScale, voc), "full_scale_v");
+        }
+        if (sensors.Current.FullScale < isc)
+        {
+            var m = sensorMap.Map("current", CurrentSensorKeys)!;
+            throw m.Error(m.Node("full_scale_a")!, string.Format(inv, "the current sensor's full scale {0:0.###} A is below the array's short-circuit current at STC, {1:0.###} A: readings above it clip; set full_scale_a to at least {1:0.###} A", sensors.Current.FullScale, isc), "full_scale_a");
+        }
+        if (converter.Kind == FrontEndKind.Boost && converter.BusVoltageV <= vmp)
+        {
+            throw converterMap.Error(converterMap.Node("bus_voltage_v") ?? converterMap.Node("type")!, string.Format(inv, "the boost's bus, {0:0.#} V, is not above the array's MPP voltage at STC, {1:0.#} V: a boost can only hold the PV voltage below its bus; set bus_voltage_v above {2:0.#} V (the open-circuit voltage) or put fewer modules in a string", converter.BusVoltageV, vmp, voc), "bus_voltage_v");
+        }
+        if (converter.Kind == FrontEndKind.Buck && converter.BatteryVoltageV >= vmp)
+        {
+            throw converterMap.Error(converterMap.Node("battery_voltage_v") ?? converterMap.Node("type")!, string.Format(inv, "the buck's battery, {0:0.#} V, is not below the array's MPP voltage at STC, {1:0.#} V: a buck can only hold the PV voltage above its battery; put more modules in a string or choose a lower battery voltage", converter.BatteryVoltageV, vmp), "battery_voltage_v");
+        }
     }
 
     private static readonly string[] ConverterKeys =
@@ -200,18 +245,19 @@ public static class ScenarioLoader
         if (maxDuty <= minDuty) throw c.Error(c.Node("max_duty") ?? c.Node("min_duty")!, "'max_duty' must be above 'min_duty'", "max_duty");
         return d with
         {
-            LagTimeConstantS = c.Positive("lag_time_constant_ms", d.LagTimeConstantS * 1e3) * 1e-3,
-            InputCapacitanceF = c.Positive("input_capacitance_uf", d.InputCapacitanceF * 1e6) * 1e-6,
-            InductanceH = c.Positive("inductance_mh", d.InductanceH * 1e3) * 1e-3,
-            InductorResistanceOhm = c.Number("inductor_resistance_ohm", d.InductorResistanceOhm, 0),
-            BusVoltageV = c.Positive("bus_voltage_v", d.BusVoltageV),
-            BatteryVoltageV = c.Positive("battery_voltage_v", d.BatteryVoltageV),
-            BatteryResistanceOhm = c.Number("battery_resistance_ohm", d.BatteryResistanceOhm, 0),
+            // Upper bounds: far beyond any PV converter, so that a typo in the exponent is an error, not a run.
+            LagTimeConstantS = c.Positive("lag_time_constant_ms", d.LagTimeConstantS * 1e3, 1e4) * 1e-3,
+            InputCapacitanceF = c.Positive("input_capacitance_uf", d.InputCapacitanceF * 1e6, 1e6) * 1e-6,
+            InductanceH = c.Positive("inductance_mh", d.InductanceH * 1e3, 1e4) * 1e-3,
+            InductorResistanceOhm = c.Number("inductor_resistance_ohm", d.InductorResistanceOhm, 0, 1e3),
+            BusVoltageV = c.Positive("bus_voltage_v", d.BusVoltageV, MaxVoltageV),
+            BatteryVoltageV = c.Positive("battery_voltage_v", d.BatteryVoltageV, MaxVoltageV),
+            BatteryResistanceOhm = c.Number("battery_resistance_ohm", d.BatteryResistanceOhm, 0, 1e3),
             MinDuty = minDuty,
             MaxDuty = maxDuty,
-            VoltageLoopBandwidthHz = c.Positive("voltage_loop_bandwidth_hz", d.VoltageLoopBandwidthHz),
-            CurrentLoopBandwidthHz = c.Positive("current_loop_bandwidth_hz", d.CurrentLoopBandwidthHz),
-            MaxVoltageReferenceV = c.Positive("max_voltage_reference_v", sensors.Voltage.FullScale),
+            VoltageLoopBandwidthHz = c.Positive("voltage_loop_bandwidth_hz", d.VoltageLoopBandwidthHz, 1e6),
+            CurrentLoopBandwidthHz = c.Positive("current_loop_bandwidth_hz", d.CurrentLoopBandwidthHz, 1e7),
+            MaxVoltageReferenceV = c.Positive("max_voltage_reference_v", sensors.Voltage.FullScale, MaxVoltageV),
             VoltageLoopIntegralHz = c.Number("voltage_loop_integral_hz", d.VoltageLoopIntegralHz, 0, 1e6),
             VoltageLoopRateHz = c.Number("voltage_loop_rate_hz", d.VoltageLoopRateHz, 0, 1e7),
         };

@@ -87,7 +87,9 @@ internal sealed class YamlMap
     }
 
     /// <summary>A positive number (physical quantities that cannot be zero).</summary>
-    public double Positive(string key, double? fallback = null) => Number(key, fallback, 0, double.PositiveInfinity, exclusiveMin: true, expected: "a number greater than zero");
+    public double Positive(string key, double? fallback = null, double max = double.PositiveInfinity) =>
+        Number(key, fallback, 0, max, exclusiveMin: true,
+            expected: double.IsPositiveInfinity(max) ? "a number greater than zero" : $"a number greater than zero and at most {max.ToString(CultureInfo.InvariantCulture)}");
 
     /// <summary>A whole number.</summary>
     public int Integer(string key, int? fallback = null, int min = int.MinValue, int max = int.MaxValue)
