@@ -27,19 +27,29 @@ internal static class CompareCommand
         foreach (var ch in changes.Where(ch => a.Flag("--all") || ch.Verdict != ScoreVerdict.Unchanged))
         {
             string delta = ch.Delta is { } d ? $" ({(d >= 0 ? "+" : "")}{d.ToString("G4", c)}, allowed {ch.Allowance.ToString("G3", c)})" : "";
-            StandardOutput.Out.WriteLine($"{ch.Verdict.ToString().ToLowerInvariant(),-10} {ch.Tracker}.{ch.Score}: {Num(ch.Baseline)} -> {Num(ch.Current)}{delta}");
+            string line = ch.Note is { } note ? $"{ch.Tracker}: {note}" : $"{ch.Tracker}.{ch.Score}: {Num(ch.Baseline)} -> {Num(ch.Current)}{delta}";
+            StandardOutput.Out.WriteLine($"{ch.Verdict.ToString().ToLowerInvariant(),-10} {line}");
         }
         int regressions = changes.Count(ch => ch.IsRegression);
+        if (regressions == 0 && changes.Count == 0) throw new ArenaInputException("the summaries hold no trackers to compare", "arguments");
         int improvements = changes.Count(ch => ch.Verdict == ScoreVerdict.Improved);
         StandardOutput.Out.WriteLine($"{current.Scenario.Name}: {regressions} regressed, {improvements} improved, {changes.Count(ch => ch.Verdict == ScoreVerdict.Unchanged)} within tolerance");
-        if (baseline.Scenario.PlantDigest != current.Scenario.PlantDigest || baseline.Scenario.Seed != current.Scenario.Seed)
+        if (baseline.Scenario.PlantDigest != current.Scenario.PlantDigest)
         {
-            StandardOutput.Out.WriteLine("note: the plant or the seed differ between the two summaries; scores are not strictly comparable");
+            StandardOutput.Out.WriteLine($"note: the plants differ (digest {baseline.Scenario.PlantDigest} in the baseline, {current.Scenario.PlantDigest} in current); scores are not strictly comparable");
+        }
+        if (baseline.Scenario.Seed != current.Scenario.Seed)
+        {
+            StandardOutput.Out.WriteLine($"note: the seeds differ ({baseline.Scenario.Seed} in the baseline, {current.Scenario.Seed} in current); noise-driven scores may move");
+        }
+        if (baseline.ToolVersion != current.ToolVersion)
+        {
+            StandardOutput.Out.WriteLine($"note: the summaries come from different tool versions ({baseline.ToolVersion} and {current.ToolVersion})");
         }
         if (a.Option("--junit") is { } junit)
         {
             JUnitWriter.Write(junit, changes.Where(ch => ch.Verdict != ScoreVerdict.New).Select(ch => new JUnitCase(
-                ch.Scenario, $"{ch.Tracker}.{ch.Score}", ch.IsRegression ? $"{ch.Verdict}: {Num(ch.Baseline)} -> {Num(ch.Current)}" : null,
+                ch.Scenario, $"{ch.Tracker}.{ch.Score}", ch.IsRegression ? ch.Note ?? $"{ch.Verdict}: {Num(ch.Baseline)} -> {Num(ch.Current)}" : null,
                 $"baseline {Num(ch.Baseline)}, current {Num(ch.Current)}, allowed worsening {ch.Allowance.ToString("G3", c)}")));
         }
         return regressions > 0 ? ExitCodes.GateFailed : ExitCodes.Ok;

@@ -13,6 +13,9 @@ public sealed record ScoreChange(string Scenario, string Tracker, string Score, 
     /// <summary>Current minus baseline, when both exist.</summary>
     public double? Delta => Baseline is { } b && Current is { } c ? c - b : null;
 
+    /// <summary>What happened, in words, where the numbers do not say it (a tracker missing or failed).</summary>
+    public string? Note { get; init; }
+
     /// <summary>True if this change fails a gate.</summary>
-    public bool IsRegression => Verdict is ScoreVerdict.Regressed or ScoreVerdict.Missing;
+    public bool IsRegression => Verdict is ScoreVerdict.Regressed or ScoreVerdict.Missing or ScoreVerdict.Failing;
 }

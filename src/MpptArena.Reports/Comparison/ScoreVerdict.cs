@@ -17,4 +17,7 @@ public enum ScoreVerdict
 
     /// <summary>Absent from the baseline.</summary>
     New,
+
+    /// <summary>A tracker that failed in the baseline and fails in the current run too: still a failure.</summary>
+    Failing,
 }

@@ -5,7 +5,10 @@ namespace MpptArena.Reports.Comparison;
 /// <summary>Compares a current summary with a baseline, tracker by tracker and score by score.</summary>
 public static class SummaryComparer
 {
-    /// <summary>Every score change; a tracker that failed now, or vanished, is reported as missing.</summary>
+    /// <summary>
+    /// Every score change. A tracker that vanished or failed now is missing; one that failed in both is still
+    /// failing; a score that became undefined regressed.
+    /// </summary>
     public static IReadOnlyList<ScoreChange> Compare(RunSummary baseline, RunSummary current, ToleranceSet tolerances)
     {
         if (baseline.Scenario.Name != current.Scenario.Name)
@@ -17,10 +20,16 @@ public static class SummaryComparer
         foreach (var b in baseline.Trackers)
         {
             var c = current.Trackers.FirstOrDefault(t => t.Name == b.Name);
-            if (c is null || (c.Failed && !b.Failed))
+            if (c is null)
             {
-                string what = c is null ? "tracker" : "tracker (failed: " + c.FailureReason + ")";
-                changes.Add(new ScoreChange(scenario, b.Name, what, null, null, 0, ScoreVerdict.Missing));
+                changes.Add(new ScoreChange(scenario, b.Name, "tracker", null, null, 0, ScoreVerdict.Missing) { Note = "in the baseline, missing in current" });
+                continue;
+            }
+            if (c.Failed)
+            {
+                var verdict = b.Failed ? ScoreVerdict.Failing : ScoreVerdict.Missing;
+                string note = b.Failed ? $"failed in the baseline and fails in current: {c.FailureReason}" : $"ran in the baseline, failed in current: {c.FailureReason}";
+                changes.Add(new ScoreChange(scenario, b.Name, "tracker", null, null, 0, verdict) { Note = note });
                 continue;
             }
             foreach (var key in b.Scores.Keys.Union(c.Scores.Keys).OrderBy(k => k, StringComparer.Ordinal))
@@ -34,7 +43,9 @@ public static class SummaryComparer
         }
         foreach (var c in current.Trackers.Where(c => baseline.Trackers.All(b => b.Name != c.Name)))
         {
-            changes.Add(new ScoreChange(scenario, c.Name, "tracker", null, null, 0, ScoreVerdict.New));
+            changes.Add(c.Failed
+                ? new ScoreChange(scenario, c.Name, "tracker", null, null, 0, ScoreVerdict.Failing) { Note = $"new in current, and failed: {c.FailureReason}" }
+                : new ScoreChange(scenario, c.Name, "tracker", null, null, 0, ScoreVerdict.New) { Note = "new in current" });
         }
         return changes;
     }
@@ -45,9 +56,10 @@ public static class SummaryComparer
         if (!inCurrent) return direction == ScoreDirection.Neutral ? ScoreVerdict.Unchanged : ScoreVerdict.Missing;
         if (direction == ScoreDirection.Neutral) return ScoreVerdict.Unchanged;
         if (b is null && c is null) return ScoreVerdict.Unchanged;
-        // Undefined lower-is-better times mean "never settled": worse than any number.
-        if (b is null) return direction == ScoreDirection.LowerIsBetter ? ScoreVerdict.Improved : ScoreVerdict.Unchanged;
-        if (c is null) return direction == ScoreDirection.LowerIsBetter ? ScoreVerdict.Regressed : ScoreVerdict.Unchanged;
+        // A score that became undefined is a regression: an undefined time means "never settled", an undefined
+        // efficiency means there was nothing to measure it on any more; one that became defined is an improvement.
+        if (b is null) return ScoreVerdict.Improved;
+        if (c is null) return ScoreVerdict.Regressed;
         double better = direction == ScoreDirection.HigherIsBetter ? c.Value - b.Value : b.Value - c.Value;
         if (better < -allowance) return ScoreVerdict.Regressed;
         if (better > allowance && better > 0) return ScoreVerdict.Improved;

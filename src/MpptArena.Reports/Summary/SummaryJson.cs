@@ -30,13 +30,20 @@ public static class SummaryJson
         }
         catch (JsonException ex)
         {
-            throw new ArenaInputException($"not a valid summary: {ex.Message.Split(" Path:")[0]}", null,
+            throw new ArenaInputException($"not a valid summary: {JsonErrorText.Describe(ex)}", null,
                 new SourceLocation(file, (ex.LineNumber ?? 0) + 1, (ex.BytePositionInLine ?? 0) + 1));
         }
         if (summary is null) throw new ArenaInputException("not a valid summary: empty document", null, new SourceLocation(file, 1, 1));
         if (summary.Schema != RunSummary.SchemaId)
         {
             throw new ArenaInputException($"summary schema '{summary.Schema}' is not supported; expected '{RunSummary.SchemaId}'", "schema", new SourceLocation(file, 1, 1));
+        }
+        if (summary.Trackers is null || summary.Scenario is null) throw new ArenaInputException("not a valid summary: it has no 'scenario' or no 'trackers'", null, new SourceLocation(file, 1, 1));
+        var twice = summary.Trackers.GroupBy(t => t.Name).FirstOrDefault(g => g.Count() > 1);
+        if (twice is not null) throw new ArenaInputException($"not a valid summary: tracker name '{twice.Key}' appears {twice.Count()} times", "trackers", new SourceLocation(file, 1, 1));
+        if (summary.Trackers.FirstOrDefault(t => t.Scores is null && !t.Failed) is { } noScores)
+        {
+            throw new ArenaInputException($"not a valid summary: tracker '{noScores.Name}' has no scores and did not fail", "trackers", new SourceLocation(file, 1, 1));
         }
         return summary;
     }
@@ -46,6 +53,6 @@ public static class SummaryJson
     {
         string file = Directory.Exists(path) ? Path.Combine(path, "summary.json") : path;
         if (!File.Exists(file)) throw new ArenaInputException($"summary '{file}' not found (give a summary.json or a results folder that holds one)", "file");
-        return Deserialize(File.ReadAllText(file), file);
+        return Deserialize(Scenarios.YamlInput.ReadText(file, "summary"), file);
     }
 }

@@ -119,7 +119,7 @@ public static class SweepStore
         }
         catch (JsonException ex)
         {
-            throw new ArenaInputException($"not a valid sweep manifest: {ex.Message.Split(" Path:")[0]}", null, new SourceLocation(file, (ex.LineNumber ?? 0) + 1, (ex.BytePositionInLine ?? 0) + 1));
+            throw new ArenaInputException($"not a valid sweep manifest: {JsonErrorText.Describe(ex)}", null, new SourceLocation(file, (ex.LineNumber ?? 0) + 1, (ex.BytePositionInLine ?? 0) + 1));
         }
     }
 }

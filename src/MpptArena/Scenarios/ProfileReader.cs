@@ -17,6 +17,24 @@ internal sealed class ProfileReader(string file, string baseDirectory, List<Scor
     /// <summary>Longest time a profile segment may span [s]: about three years.</summary>
     public const double MaxSegmentS = 1e8;
 
+    private double? _openCsvEndS;
+    private SourceLocation? _openCsvAt;
+
+    /// <summary>Profiles that end with a CSV file not marked hold_last: the run must not outlast them (<see cref="CheckCovers"/>).</summary>
+    private readonly List<(double EndS, SourceLocation At, string Path)> _openEnded = [];
+
+    /// <summary>
+    /// Refuses a run longer than a profile that ends with a CSV file, unless that file says hold_last: a
+    /// logger file that stops early would otherwise hold its last value silently.
+    /// </summary>
+    public void CheckCovers(double durationS)
+    {
+        foreach (var (end, at, path) in _openEnded.Where(o => o.EndS < durationS * (1 - 1e-12)))
+        {
+            throw new ArenaInputException($"'{path}' ends with a CSV file whose data stop at {end.ToString("0.###", CultureInfo.InvariantCulture)} s, before the run's {durationS.ToString("0.###", CultureInfo.InvariantCulture)} s; shorten simulation.duration_s, add data, or set 'hold_last: true' on the csv to keep its last value", "csv", at);
+        }
+    }
+
     private static readonly string[] SegmentKinds = ["start", "hold_s", "step", "ramp", "points", "repeat", "en50530_ramps", "cloud", "csv"];
 
     /// <summary>Reads the profile at <paramref name="key"/> of <paramref name="parent"/>.</summary>
@@ -36,6 +54,7 @@ internal sealed class ProfileReader(string file, string baseDirectory, List<Scor
         ProfileBuilder? builder = null;
         Append(seq, path, ref builder, min, max, irradiance, depth: 0);
         if (builder is null) throw parent.Error(node, $"'{path}' has no segments", key);
+        if (_openCsvEndS is { } end && end == builder.TimeS) _openEnded.Add((end, _openCsvAt!, path));
         return builder.Build();
     }
 
@@ -45,6 +64,7 @@ internal sealed class ProfileReader(string file, string baseDirectory, List<Scor
         foreach (var item in seq.Children)
         {
             var m = new YamlMap(item, file, $"{path}[{index}]", SegmentKinds);
+            _openCsvEndS = null;
             if (m.Count != 1)
             {
                 throw new ArenaInputException($"each segment of '{path}' has exactly one key ({string.Join(", ", SegmentKinds)}); this one has {m.Count}", "segment", m.Location);
@@ -150,12 +170,14 @@ internal sealed class ProfileReader(string file, string baseDirectory, List<Scor
 
     private void Csv(YamlMap m, ProfileBuilder b, double min, double max)
     {
-        var c = m.Map("csv", ["file", "time_column", "value_column", "skip_header"])!;
+        var c = m.Map("csv", ["file", "time_column", "value_column", "skip_header", "hold_last"])!;
         string name = c.Text("file");
         string full = System.IO.Path.IsPathRooted(name) ? name : System.IO.Path.Combine(baseDirectory, name);
         if (!System.IO.File.Exists(full)) throw new ArenaInputException($"CSV file '{name}' not found (looked in {full})", "file", c.Location);
         int tc = c.Integer("time_column", 1, 1, 1000) - 1, vc = c.Integer("value_column", 2, 1, 1000) - 1;
+        if (tc == vc) throw c.Error((c.Node("value_column") ?? c.Node("time_column"))!, $"'value_column' and 'time_column' are both column {tc + 1}; the values must come from another column than the times", "value_column");
         bool skipHeader = c.Text("skip_header", "true", ["true", "false"]) == "true";
+        bool holdLast = c.Text("hold_last", "false", ["true", "false"]) == "true";
         double t0 = b.TimeS, last = double.NegativeInfinity;
         int lineNo = 0, rows = 0;
         string text = YamlInput.ReadText(full, "CSV file");
@@ -165,20 +187,33 @@ internal sealed class ProfileReader(string file, string baseDirectory, List<Scor
             lineNo++;
             if (lineNo == 1 && skipHeader) continue;
             if (string.IsNullOrWhiteSpace(line) || line.TrimStart().StartsWith('#')) continue;
-            var cells = line.Split(',');
+            var raw = line.Split(',');
+            var cells = raw.Select(Unquote).ToArray();
             if (cells.Length <= Math.Max(tc, vc)) throw CsvError(name, lineNo, 1, $"expected at least {Math.Max(tc, vc) + 1} comma-separated columns");
             if (!double.TryParse(cells[tc], NumberStyles.Float, CultureInfo.InvariantCulture, out double t) || !double.IsFinite(t))
-                throw CsvError(name, lineNo, ColumnOf(cells, tc), $"time '{cells[tc].Trim()}' is not a number (seconds)");
+                throw CsvError(name, lineNo, ColumnOf(raw, tc), $"time '{cells[tc].Trim()}' is not a number (seconds)");
             if (!double.TryParse(cells[vc], NumberStyles.Float, CultureInfo.InvariantCulture, out double v) || !double.IsFinite(v))
-                throw CsvError(name, lineNo, ColumnOf(cells, vc), $"value '{cells[vc].Trim()}' is not a number");
-            if (t < last) throw CsvError(name, lineNo, ColumnOf(cells, tc), $"time goes backwards: {t} s after {last} s");
-            if (v < min || v > max) throw CsvError(name, lineNo, ColumnOf(cells, vc), $"value {v} is out of range {min} to {max}");
-            if (rows == 0 && t < 0) throw CsvError(name, lineNo, ColumnOf(cells, tc), "times are relative to the segment start and must not be negative");
+                throw CsvError(name, lineNo, ColumnOf(raw, vc), $"value '{cells[vc].Trim()}' is not a number");
+            if (t < last) throw CsvError(name, lineNo, ColumnOf(raw, tc), $"time goes backwards: {t} s after {last} s");
+            if (v < min || v > max) throw CsvError(name, lineNo, ColumnOf(raw, vc), $"value {v} is out of range {min} to {max}");
+            if (rows == 0 && t < 0) throw CsvError(name, lineNo, ColumnOf(raw, tc), "times are relative to the segment start and must not be negative");
             b.LineTo(t0 + t, v);
             last = t;
             rows++;
         }
         if (rows == 0) throw new ArenaInputException($"CSV file '{name}' holds no data rows", "file", c.Location);
+        if (!holdLast)
+        {
+            _openCsvEndS = b.TimeS;
+            _openCsvAt = c.Location;
+        }
+    }
+
+    /// <summary>A cell without the double quotes spreadsheets and loggers put around numbers ("12.5" reads as 12.5).</summary>
+    private static string Unquote(string cell)
+    {
+        string t = cell.Trim();
+        return t.Length >= 2 && t[0] == '"' && t[^1] == '"' ? t[1..^1].Replace("\"\"", "\"", StringComparison.Ordinal) : cell;
     }
 
     private static int ColumnOf(string[] cells, int index) => cells.Take(index).Sum(c => c.Length + 1) + 1;

@@ -46,7 +46,7 @@ public static class ScenarioLoader
             root = new YamlMap(top, path, "plant", PlantKeys);
             var module = ReadModule(Required(root, "module", ["datasheet", "single_diode"]));
             var array = ReadArray(Required(root, "array", ArrayKeys), module);
-            environment = ReadEnvironment(Required(root, "conditions", EnvironmentKeys), array, path, dir, [], []);
+            environment = ReadEnvironment(Required(root, "conditions", EnvironmentKeys), array, path, dir, [], []).Model;
             return (ReadName(root), array, Evaluate(array, environment, atS));
         }
         var scenario = Parse(text, path, TrackerRegistry.WithBuiltIns(), dir);
@@ -109,10 +109,11 @@ public static class ScenarioLoader
         CheckPlant(root, array, converter, sensors);
         var windows = new List<ScoringWindow>();
         var sources = new List<string> { $"scenario {root.Digest}" };
-        var environment = ReadEnvironment(Required(root, "environment", EnvironmentKeys),
+        var (environment, profiles) = ReadEnvironment(Required(root, "environment", EnvironmentKeys),
             array, file, baseDirectory, windows, sources);
         var simulationMap = Required(root, "simulation", ["duration_s", "plant_step_us", "environment_step_ms", "seed", "reprepare_irradiance_w_m2", "reprepare_temperature_c", "series_interval_ms"]);
         var simulation = ReadSimulation(simulationMap, environment, converter.Kind);
+        profiles.CheckCovers(simulation.DurationS);
         var trackers = ReadTrackers(root, registry, simulationMap.Has("plant_step_us") ? simulation : null, baseDirectory, converter);
         simulation = (simulation with { PlantStepGiven = simulationMap.Has("plant_step_us"), EnvironmentStepGiven = simulationMap.Has("environment_step_ms") })
             .WithStepsFor(converter.Kind, trackers.Select(t => t.SamplePeriodS));
@@ -263,7 +264,7 @@ public static class ScenarioLoader
         };
     }
 
-    private static EnvironmentModel ReadEnvironment(YamlMap e, PvArray array, string file, string baseDir, List<ScoringWindow> windows, List<string> sources)
+    private static (EnvironmentModel Model, ProfileReader Profiles) ReadEnvironment(YamlMap e, PvArray array, string file, string baseDir, List<ScoringWindow> windows, List<string> sources)
     {
         var reader = new ProfileReader(file, baseDir, windows, sources);
         e.Required("irradiance_w_m2", "a number or a list of segments");
@@ -283,7 +284,7 @@ public static class ScenarioLoader
             temperature = new TemperatureModel(reader.Read(e, "ambient_temperature_c", -60, 70, false), e.Number("noct_c", null, 25, 80));
         }
         var shading = e.Sequence("shading") is { } seq ? ShadingReader.Read(seq, e, array.Layout, reader) : [];
-        return new EnvironmentModel(irradiance, temperature, shading);
+        return (new EnvironmentModel(irradiance, temperature, shading), reader);
     }
 
     private static SimulationSettings ReadSimulation(YamlMap s, EnvironmentModel environment, FrontEndKind frontEnd)

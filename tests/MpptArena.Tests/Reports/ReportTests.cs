@@ -70,6 +70,49 @@ public class ReportTests
         Assert.Contains(better, c => c.Verdict == ScoreVerdict.Improved && c.Tracker == "cv");
     }
 
+    private static RunSummary WithTracker(RunSummary s, string tracker, Func<TrackerSummary, TrackerSummary?> change) =>
+        s with { Trackers = s.Trackers.Select(t => t.Name == tracker ? change(t) : t).OfType<TrackerSummary>().ToList() };
+
+    [Fact]
+    public void CompareLeavesNoHoleForARegressionToSlipThrough()
+    {
+        // Rules of the regression gate (common practice for CI gates: anything that got worse or stopped being
+        // measurable fails): an efficiency that became undefined, a tracker that failed in both runs, a tracker
+        // missing from the current run.
+        var baseline = SummaryBuilder.Build(Shared.Value.Run);
+        var tolerances = new ToleranceSet();
+        var undefined = WithTracker(baseline, "po", t => t with { Scores = new SortedDictionary<string, double?>(t.Scores, StringComparer.Ordinal) { ["tracking_efficiency"] = null } });
+        var r = Assert.Single(SummaryComparer.Compare(baseline, undefined, tolerances), c => c.IsRegression);
+        Assert.Equal((ScoreVerdict.Regressed, "tracking_efficiency"), (r.Verdict, r.Score));
+
+        var failed = WithTracker(baseline, "po", t => t with { Failed = true, FailureReason = "threw InvalidOperationException" });
+        var both = SummaryComparer.Compare(failed, failed, tolerances);
+        var f = Assert.Single(both, c => c.IsRegression);
+        Assert.Equal(ScoreVerdict.Failing, f.Verdict);
+        Assert.Contains("failed in the baseline and fails in current", f.Note);
+
+        var gone = SummaryComparer.Compare(baseline, WithTracker(baseline, "po", _ => null), tolerances);
+        var m = Assert.Single(gone, c => c.IsRegression);
+        Assert.Equal((ScoreVerdict.Missing, "missing in current"), (m.Verdict, m.Note![^18..]));
+    }
+
+    [Fact]
+    public void SummariesWithDuplicateTrackersOrWrongTypesAreRefusedInWords()
+    {
+        var baseline = SummaryBuilder.Build(Shared.Value.Run);
+        string twice = SummaryJson.Serialize(baseline with { Trackers = [.. baseline.Trackers, baseline.Trackers[0]] });
+        var e = Assert.Throws<ArenaInputException>(() => SummaryJson.Deserialize(twice, "twice.json"));
+        Assert.Contains($"tracker name '{baseline.Trackers[0].Name}' appears 2 times", e.Message);
+
+        string text = SummaryJson.Serialize(baseline);
+        int at = text.IndexOf("\"tracking_efficiency\": ", StringComparison.Ordinal) + "\"tracking_efficiency\": ".Length;
+        string wrong = text[..at] + "\"high\"" + text[text.IndexOf(',', at)..];
+        var w = Assert.Throws<ArenaInputException>(() => SummaryJson.Deserialize(wrong, "wrong.json"));
+        Assert.Contains("a number or null", w.Message);
+        Assert.DoesNotContain("System.", w.Message);
+        Assert.Matches(@"wrong\.json:\d+:\d+", w.Message);
+    }
+
     [Fact]
     public void JUnitXmlIsWellFormedAndCountsFailures()
     {
