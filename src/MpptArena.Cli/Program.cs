@@ -27,6 +27,12 @@ internal static class Program
     public static int Main(string[] args)
     {
         StandardOutput.Capture();
+        return Dispatch(args);
+    }
+
+    /// <summary>Runs one command and turns every way it can end into an exit code and a message (never a stack trace).</summary>
+    internal static int Dispatch(string[] args)
+    {
         if (args.Length == 0 || args[0] is "-h" or "--help" or "help")
         {
             StandardOutput.Out.WriteLine(Help);

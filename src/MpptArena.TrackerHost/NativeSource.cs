@@ -1,3 +1,4 @@
+using MpptArena;
 using MpptArena.Trackers;
 using MpptArena.Trackers.Native;
 
@@ -49,6 +50,12 @@ internal sealed class NativeSource(string libraryPath) : IHostedSource
                 library.Free();
                 File.Delete(copy);
             });
+        }
+        catch (ArenaInputException ex)
+        {
+            File.Delete(copy);
+            // The message names the user's file, not the private copy.
+            throw new ArenaInputException(ex.Reason.Replace(copy, libraryPath, StringComparison.Ordinal), ex.Field);
         }
         catch
         {

@@ -17,7 +17,7 @@ internal static class Program
         var (input, output) = StandardStreams.TakeProtocolStreams();
         var reader = new FrameReader(input);
         var builder = new FrameBuilder();
-        IHostedSource source;
+        IHostedSource? source = null;
         HostHello hello;
         try
         {
@@ -33,10 +33,11 @@ internal static class Program
         catch (Exception ex)
         {
             SendError(builder, output, ex is ArenaInputException ? "could not load" : $"threw {ex.GetType().Name} while loading", ex);
+            (source as NativeSource)?.DeleteCopies();
             return 2;
         }
         HostMessages.Hello(builder, hello).SendTo(output);
-        var server = new HostServer(source, hello.Parameters, reader, builder, output);
+        var server = new HostServer(source!, hello.Parameters, reader, builder, output);
         try
         {
             server.Serve();
@@ -52,8 +53,10 @@ internal static class Program
     /// <summary>Sends an ERROR frame and writes the whole exception to standard error (the tracker's log).</summary>
     public static void SendError(FrameBuilder builder, Stream output, string kind, Exception ex)
     {
+        // Bad input (a file that is not a tracker library) is a message, not a crash: no stack trace.
         string message = ex is ArenaInputException a ? a.Message : ex.Message;
-        Console.Error.WriteLine($"mppt-arena-host: {kind}: {ex}");
-        HostMessages.Error(builder, kind, message, ex.ToString()).SendTo(output);
+        string details = ex is ArenaInputException ? "" : ex.ToString();
+        Console.Error.WriteLine($"mppt-arena-host: {kind}: {(details.Length > 0 ? details : message)}");
+        HostMessages.Error(builder, kind, message, details).SendTo(output);
     }
 }

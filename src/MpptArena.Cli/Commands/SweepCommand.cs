@@ -19,11 +19,7 @@ internal static class SweepCommand
     {
         var a = new ArgumentReader(args, "sweep", ["--out", "--shard", "--threads", "--plugin"], ["--tune", "--no-plots", "--quiet", "--force"]);
         a.RequirePositional(1, Usage);
-        var sweep = SweepLoader.Load(a.Positional[0], Plugins.Registry(a.Options("--plugin")));
-        if (ScoreCatalog.Find(sweep.ObjectiveScore) is null)
-        {
-            throw new ArenaInputException($"objective '{sweep.ObjectiveScore}' is not a score; known: {string.Join(", ", ScoreCatalog.All.Select(s => s.Key))}", "objective");
-        }
+        var sweep = SweepLoader.Load(a.Positional[0], Plugins.Registry(a.Options("--plugin")), ScoreCatalog.All.Select(s => s.Key).ToList());
         int threads = a.Option("--threads") is { } t
             ? (int.TryParse(t, out int n) && n >= 1 ? n : throw new ArenaInputException($"--threads '{t}' must be a whole number of at least 1", "--threads"))
             : System.Environment.ProcessorCount;
@@ -138,7 +134,6 @@ internal static class SweepCommand
     private static int Tune(SweepDefinition sweep, ArgumentReader a, int threads)
     {
         var tune = sweep.Tune ?? throw new ArenaInputException("--tune needs a 'tune' section in the sweep file", "tune");
-        if (ScoreCatalog.Find(tune.Score) is null) throw new ArenaInputException($"tune score '{tune.Score}' is not a score", "tune");
         using var stage = StagedOutput.Begin(a.Option("--out") ?? Path.Combine("results", $"tune-{sweep.Name}"), "tune", a.Flag("--force"), numberIfTaken: a.Option("--out") is null);
         var tracker = sweep.Trackers.First(t => t.Name == tune.TrackerName);
         var declared = tune.Parameters.Select(p => tracker.Descriptor.Parameters.First(d => d.Name == p)).ToList();

@@ -1,15 +1,17 @@
 using MpptArena.Cli.Terminal;
+using MpptArena.Reports.Summary;
 using MpptArena.Scenarios;
+using MpptArena.Sweeps;
 
 namespace MpptArena.Cli.Commands;
 
-/// <summary>mppt-arena validate FILE...: checks scenario files without running them.</summary>
+/// <summary>mppt-arena validate FILE...: checks scenario, plant and sweep files without running them.</summary>
 internal static class ValidateCommand
 {
     public static int Execute(string[] args)
     {
         var a = new ArgumentReader(args, "validate", ["--plugin"], []);
-        if (a.Positional.Count == 0) throw new ArenaInputException("usage: mppt-arena validate SCENARIO.yaml...", "arguments");
+        if (a.Positional.Count == 0) throw new ArenaInputException("usage: mppt-arena validate SCENARIO_OR_SWEEP.yaml...", "arguments");
         var registry = Plugins.Registry(a.Options("--plugin"));
         int bad = 0;
         foreach (string file in a.Positional)
@@ -20,6 +22,12 @@ internal static class ValidateCommand
                 {
                     var (name, array, _) = ScenarioLoader.LoadCurveSetup(file, 0);
                     StandardOutput.Out.WriteLine($"ok    {file}: plant file '{name}' for the curve command, {array.Layout.SubstringCount} substrings");
+                    continue;
+                }
+                if (File.Exists(file) && File.ReadLines(file).Any(l => l.StartsWith("scenarios:", StringComparison.Ordinal)))
+                {
+                    var sweep = SweepLoader.Load(file, registry, ScoreCatalog.All.Select(k => k.Key).ToList());
+                    StandardOutput.Out.WriteLine($"ok    {file}: sweep '{sweep.Name}', {SweepPlanner.Cases(sweep).Count} cases over {sweep.Scenarios.Count} scenario(s)");
                     continue;
                 }
                 var s = ScenarioLoader.Load(file, registry);

@@ -8,17 +8,37 @@ namespace MpptArena.Cli.Terminal;
 /// </summary>
 internal static class StandardOutput
 {
+    private static readonly AsyncLocal<(TextWriter Out, TextWriter Error)?> Redirected = new();
+    private static TextWriter _out = Console.Out;
+    private static TextWriter _error = Console.Error;
+
     /// <summary>Standard output as it was at start-up.</summary>
-    public static TextWriter Out { get; private set; } = Console.Out;
+    public static TextWriter Out => Redirected.Value?.Out ?? _out;
 
     /// <summary>Standard error as it was at start-up.</summary>
-    public static TextWriter Error { get; private set; } = Console.Error;
+    public static TextWriter Error => Redirected.Value?.Error ?? _error;
+
+    /// <summary>
+    /// Until the returned scope ends, what this flow of execution writes goes to the given writers (the
+    /// tests run commands in process this way, each with its own writers).
+    /// </summary>
+    public static IDisposable RedirectTo(TextWriter output, TextWriter error)
+    {
+        var before = Redirected.Value;
+        Redirected.Value = (output, error);
+        return new Restore(() => Redirected.Value = before);
+    }
+
+    private sealed class Restore(Action restore) : IDisposable
+    {
+        public void Dispose() => restore();
+    }
 
     /// <summary>Takes the streams and points Spectre.Console at them.</summary>
     public static void Capture()
     {
-        Out = Console.Out;
-        Error = Console.Error;
+        _out = Console.Out;
+        _error = Console.Error;
         AnsiConsole.Console = AnsiConsole.Create(new AnsiConsoleSettings { Out = new AnsiConsoleOutput(Out) });
     }
 }

@@ -60,12 +60,12 @@ public sealed class ToleranceSet
     public void ParseOption(string text)
     {
         int eq = text.IndexOf('=');
-        if (eq <= 0) throw new ArenaInputException($"tolerance '{text}' must look like score=absolute[,relative], e.g. tracking_efficiency=0.002", "--tolerance");
+        if (eq <= 0) throw new ArenaInputException($"--tolerance '{text}' must look like score=absolute[,relative], e.g. tracking_efficiency=0.002", "--tolerance");
         string key = text[..eq];
-        if (key != "window:*" && ScoreCatalog.Find(key) is null) throw new ArenaInputException($"unknown score '{key}' in --tolerance", "--tolerance");
+        if (key != "window:*" && ScoreCatalog.Find(key) is null) throw new ArenaInputException($"--tolerance: unknown score '{key}'", "--tolerance");
         var parts = text[(eq + 1)..].Split(',');
         double Parse(string s) => double.TryParse(s, NumberStyles.Float, CultureInfo.InvariantCulture, out double v) && v >= 0 && double.IsFinite(v)
-            ? v : throw new ArenaInputException($"tolerance value '{s}' in '{text}' must be a number of at least 0", "--tolerance");
+            ? v : throw new ArenaInputException($"--tolerance: value '{s}' in '{text}' must be a finite number of at least 0", "--tolerance");
         Set(key, new Tolerance(Parse(parts[0]), parts.Length > 1 ? Parse(parts[1]) : 0));
     }
 

@@ -85,6 +85,7 @@ internal sealed class ProfileReader(string file, string baseDirectory, List<Scor
                 var r = m.Map("repeat", ["times", "segments"])!;
                 int times = r.Integer("times", null, 1, 100_000);
                 var inner = r.Sequence("segments") ?? throw r.Error(r.Required("segments", "a list of segments"), "'segments' must be a list");
+                if (inner.Children.Count == 0) throw r.Error(inner, "'segments' is empty: a repeat needs at least one segment", "segments");
                 if (depth > 8) throw r.Error(inner, "repeat is nested too deeply (more than 8 levels)");
                 for (int k = 0; k < times; k++)
                 {

@@ -154,7 +154,7 @@ public static class ScenarioLoader
     }
 
     private static BypassDiode ReadDiode(YamlMap d) =>
-        BypassDiode.FromForwardVoltage(d.Number("forward_voltage_v", null, 0.05, 2, true), d.Positive("at_current_a"), d.Number("ideality", 1.0, 0.5, 3));
+        BypassDiode.FromForwardVoltage(d.Number("forward_voltage_v", null, 0.05, 2, true), d.Positive("at_current_a", null, MaxCurrentA), d.Number("ideality", 1.0, 0.5, 3));
 
     private static PvArray ReadArray(YamlMap a, ModuleModel module)
     {
@@ -306,7 +306,7 @@ public static class ScenarioLoader
         string seedText = s.Has("seed") ? s.Scalar(s.Node("seed")!, "seed") : "1";
         if (!ulong.TryParse(seedText, out ulong seed)) throw s.Error(s.Node("seed")!, $"'seed' = '{seedText}' must be a whole number from 0 to 18446744073709551615", "seed");
         return new SimulationSettings(duration, step, env, seed, s.Positive("reprepare_irradiance_w_m2", d.ReprepareIrradianceWm2),
-            s.Positive("reprepare_temperature_c", d.ReprepareTemperatureC), s.Number("series_interval_ms", d.SeriesIntervalS * 1e3, 0) * 1e-3);
+            s.Positive("reprepare_temperature_c", d.ReprepareTemperatureC), s.Number("series_interval_ms", d.SeriesIntervalS * 1e3, 0, ProfileReader.MaxSegmentS * 1e3) * 1e-3);
     }
 
     private static IReadOnlyList<TrackerSpec> ReadTrackers(YamlMap root, TrackerRegistry registry, SimulationSettings? givenStep, string baseDirectory, ConverterSettings converter)
@@ -353,10 +353,17 @@ public static class ScenarioLoader
             foreach (var item in seq.Children)
             {
                 var w = new YamlMap(item, s.File, $"{s.Path}.windows[{k++}]", ["name", "start_s", "end_s"]);
-                double start = w.Number("start_s", null, 0), end = w.Number("end_s", null, 0);
+                string name = w.Text("name");
+                if (name.Length == 0 || name.Length > TrackerEntryReader.MaxNameLength || name.Any(c => !(char.IsAsciiLetterOrDigit(c) || c is '-' or '_' or '.')))
+                {
+                    throw w.Error(w.Node("name")!, $"window name '{(name.Length > 80 ? name[..80] + "..." : name)}' must be 1 to {TrackerEntryReader.MaxNameLength} letters, digits, '-', '_' or '.' (it names the score window:NAME)", "name");
+                }
+                if (windows.Any(x => x.Name == name || x.Group == name)) throw w.Error(w.Node("name")!, $"window name '{name}' is used twice", "name");
+                double start = w.Number("start_s", null, 0, ProfileReader.MaxSegmentS), end = w.Number("end_s", null, 0, ProfileReader.MaxSegmentS);
                 if (end <= start) throw w.Error(w.Node("end_s")!, "'end_s' must be after 'start_s'", "end_s");
                 if (start >= sim.DurationS) throw w.Error(w.Node("start_s")!, $"window starts at {start} s, after the run ends ({sim.DurationS} s)", "start_s");
-                windows.Add(new ScoringWindow(w.Text("name"), start, end));
+                if (end > sim.DurationS * (1 + 1e-12)) throw w.Error(w.Node("end_s")!, $"window ends at {end} s, after the run ends ({sim.DurationS} s); a window is scored over time the run covers", "end_s");
+                windows.Add(new ScoringWindow(name, start, end));
             }
         }
         var snapshots = new List<double>();
@@ -369,7 +376,7 @@ public static class ScenarioLoader
                 snapshots.Add(t);
             }
         }
-        return new ScoringSettings(s.Number("settling_band_fraction", d.SettlingBandFraction, 0, 1, true), s.Number("settling_hold_s", d.SettlingHoldS, 0),
-            s.Number("static_allowance_s", d.StaticAllowanceS, 0), windows, snapshots);
+        return new ScoringSettings(s.Number("settling_band_fraction", d.SettlingBandFraction, 0, 1, true), s.Number("settling_hold_s", d.SettlingHoldS, 0, ProfileReader.MaxSegmentS),
+            s.Number("static_allowance_s", d.StaticAllowanceS, 0, ProfileReader.MaxSegmentS), windows, snapshots);
     }
 }

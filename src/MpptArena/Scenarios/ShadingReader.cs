@@ -15,6 +15,7 @@ internal static class ShadingReader
         {
             string path = $"{parent.Path}.shading[{index++}]";
             var m = new YamlMap(item, parent.File, path, ["name", "substrings", "modules", "transmittance", "moving_shadow"]);
+            m.Text("name", ""); // optional; when given, a text value
             if (m.Has("moving_shadow"))
             {
                 list.Add(Moving(m.Map("moving_shadow", ["string", "from_substring", "to_substring", "start_s", "end_s", "width_substrings", "transmittance"])!, layout));
@@ -68,8 +69,8 @@ internal static class ShadingReader
         int st = Index(m, "string", layout.StringsInParallel, "strings");
         int n = layout.SubstringsPerString;
         double from = m.Number("from_substring", null, -1000, n + 1000), to = m.Number("to_substring", null, -1000, n + 1000);
-        double start = m.Number("start_s", null, 0), end = m.Number("end_s", null, 0);
+        double start = m.Number("start_s", null, 0, ProfileReader.MaxSegmentS), end = m.Number("end_s", null, 0, ProfileReader.MaxSegmentS);
         if (end <= start) throw m.Error(m.Node("end_s")!, "'end_s' must be after 'start_s'", "end_s");
-        return new MovingShadow(layout.IndexOf(st, 0, 0), n, start, end, from, to, m.Positive("width_substrings"), m.Number("transmittance", null, 0, 1));
+        return new MovingShadow(layout.IndexOf(st, 0, 0), n, start, end, from, to, m.Positive("width_substrings", null, 1e6), m.Number("transmittance", null, 0, 1));
     }
 }

@@ -66,11 +66,13 @@ public static class YamlInput
         var parser = new Parser(new StringReader(yaml));
         var anchors = new HashSet<string>(StringComparer.Ordinal);
         int depth = 0, documents = 0, aliases = 0;
+        long lastLine = 1, lastColumn = 1;
         try
         {
             while (parser.MoveNext())
             {
                 var e = parser.Current!;
+                (lastLine, lastColumn) = (e.End.Line, e.End.Column);
                 var at = new SourceLocation(file, e.Start.Line, e.Start.Column);
                 switch (e)
                 {
@@ -101,6 +103,11 @@ public static class YamlInput
         catch (YamlException ex)
         {
             throw Error(ex, file);
+        }
+        catch (InvalidOperationException)
+        {
+            // The YAML scanner gives up without a position on some unterminated flow collections.
+            throw new ArenaInputException("not valid YAML after this point: a '{ }' or '[ ]' that is not closed, or a value that cannot be read", null, new SourceLocation(file, lastLine, lastColumn));
         }
     }
 

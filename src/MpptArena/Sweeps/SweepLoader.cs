@@ -16,7 +16,10 @@ public static class SweepLoader
     private static readonly string[] TopKeys = ["name", "scenarios", "trackers", "plugins", "sampling", "objective", "heatmap", "tune"];
 
     /// <summary>Loads a sweep file.</summary>
-    public static SweepDefinition Load(string path, TrackerRegistry registry)
+    /// <param name="path">The YAML file.</param>
+    /// <param name="registry">Tracker kinds that may be named.</param>
+    /// <param name="scoreKeys">Score keys the objective and tune score may name (besides window:NAME of the scenarios' windows); null skips that check.</param>
+    public static SweepDefinition Load(string path, TrackerRegistry registry, IReadOnlyCollection<string>? scoreKeys = null)
     {
         string dir = Path.GetDirectoryName(Path.GetFullPath(path)) ?? ".";
         var rootNode = YamlInput.ReadRoot(YamlInput.ReadText(path, "sweep file"), path, "a sweep mapping");
@@ -46,14 +49,35 @@ public static class SweepLoader
         var sampling = ReadSampling(root);
         var trackers = ReadTrackers(root, dir, registry, scenarios, sampling.Method != SweepSamplingMethod.Grid);
         string objective = root.Text("objective", "tracking_efficiency");
+        if (scoreKeys is not null) CheckScore(root, "objective", objective, scoreKeys, scenarios);
         string? hx = null, hy = null;
         if (root.Map("heatmap", ["x", "y"]) is { } h)
         {
+            var axes = trackers.SelectMany(t => t.Axes.Select(a => a.Name)).Distinct().ToList();
+            foreach (string key in new[] { "x", "y" })
+            {
+                string axis = h.Text(key);
+                if (!axes.Contains(axis))
+                {
+                    throw h.Error(h.Node(key)!, $"heatmap {key} '{axis}' is not a swept axis; {(axes.Count == 0 ? "the sweep sweeps nothing" : "swept: " + string.Join(", ", axes))}", key);
+                }
+            }
             hx = h.Text("x");
             hy = h.Text("y");
         }
         var tune = ReadTune(root, trackers);
+        if (tune is not null && scoreKeys is not null) CheckScore(root.Map("tune", ["tracker", "parameters", "score", "goal", "over", "max_evaluations"])!, "score", tune.Score, scoreKeys, scenarios);
         return new SweepDefinition(name, scenarios, trackers, sampling, objective, hx, hy, tune);
+    }
+
+    private static void CheckScore(YamlMap map, string key, string score, IReadOnlyCollection<string> scoreKeys, IReadOnlyList<Scenario> scenarios)
+    {
+        if (scoreKeys.Contains(score)) return;
+        const string prefix = "window:";
+        var windows = scenarios.SelectMany(s => s.Scoring.AllWindows.SelectMany(w => w.Group is null ? [w.Name] : new[] { w.Name, w.Group })).Distinct().ToList();
+        if (score.StartsWith(prefix, StringComparison.Ordinal) && windows.Contains(score[prefix.Length..])) return;
+        var node = map.Node(key) ?? throw new ArenaInputException($"'{key}' defaults to '{score}', which is not a score", key, map.Location);
+        throw map.Error(node, $"'{key}' = '{score}' is not a score; known: {string.Join(", ", scoreKeys)}{string.Concat(windows.Select(w => ", " + prefix + w))}", key);
     }
 
     private static List<Scenario> ReadScenarios(YamlMap root, string dir, TrackerRegistry registry)
@@ -193,6 +217,7 @@ public static class SweepLoader
         var tracker = trackers.FirstOrDefault(x => x.Name == name) ?? throw t.Error(t.Node("tracker")!, $"tune names tracker '{name}', which the sweep does not have", "tracker");
         var seq = t.Sequence("parameters") ?? throw new ArenaInputException("tune needs 'parameters': the names to tune", "parameters", t.Location);
         var names = seq.Children.Select(n => t.Scalar(n, "parameters")).ToList();
+        if (names.Count == 0) throw t.Error(seq, "tune 'parameters' is empty: name at least one parameter to tune", "parameters");
         foreach (var (n, node) in names.Zip(seq.Children))
         {
             if (tracker.Descriptor.Parameters.All(p => p.Name != n))

@@ -126,4 +126,36 @@ public class ScenarioErrorTests
             Assert.NotEmpty(s.Trackers);
         }
     }
+
+    [Fact]
+    public void AnOversizedFileIsRefusedBeforeItIsRead()
+    {
+        // A limit of the tool itself (YamlInput.MaxFileBytes): an input that could exhaust memory is refused at 1:1.
+        string file = Path.Combine(Path.GetTempPath(), $"mppt-arena-big-{Guid.NewGuid():N}.yaml");
+        using (var f = File.Create(file)) f.SetLength(YamlInput.MaxFileBytes + 1);
+        try
+        {
+            var e = Assert.Throws<ArenaInputException>(() => ScenarioLoader.Load(file, TrackerRegistry.WithBuiltIns()));
+            Assert.Contains("the limit is 16 MiB", e.Message);
+            Assert.Equal((1L, 1L), (e.Location!.Line, e.Location.Column));
+        }
+        finally
+        {
+            File.Delete(file);
+        }
+    }
+
+    [Fact]
+    public void PlantsThatCannotTrackAreRefusedWithTheFixNamed()
+    {
+        // A boost steps up only and a buck steps down only (Erickson, Maksimovic, Fundamentals of Power
+        // Electronics, 2nd ed., 2001, ch. 2): V_pv = (1 - D) V_bus for the boost, V_batt = D V_pv for the buck.
+        var boost = Assert.Throws<ArenaInputException>(() => TestScenarios.Parse(TestScenarios.Yaml(converter: "type: boost\n  bus_voltage_v: 250")));
+        Assert.Contains("not above the array's MPP voltage at STC", boost.Message);
+        var buck = Assert.Throws<ArenaInputException>(() => TestScenarios.Parse(TestScenarios.Yaml(converter: "type: buck\n  battery_voltage_v: 400")));
+        Assert.Contains("not below the array's MPP voltage at STC", buck.Message);
+        var adc = Assert.Throws<ArenaInputException>(() => TestScenarios.Parse(TestScenarios.Yaml(sensors: "voltage: { bits: 16, full_scale_v: 300 }\n  current: { bits: 16, full_scale_a: 12 }")));
+        Assert.Contains("full_scale_v to at least", adc.Message);
+        Assert.All(new[] { boost, buck, adc }, e => Assert.NotNull(e.Location));
+    }
 }

@@ -54,7 +54,10 @@ public sealed unsafe class NativeTrackerLibrary
         }
         catch (Exception ex) when (ex is DllNotFoundException or BadImageFormatException)
         {
-            throw new ArenaInputException($"native tracker library '{path}' could not be loaded: {ex.Message}", "library");
+            // The loader's own reason (dlerror: "file too short", "invalid ELF header") is the last line of the message.
+            string reason = ex.Message.Split('\n', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries)[^1];
+            if (reason.StartsWith(path + ": ", StringComparison.Ordinal)) reason = reason[(path.Length + 2)..];
+            throw new ArenaInputException($"native tracker library '{path}' could not be loaded: {reason}", "library");
         }
         var exports = new Dictionary<string, IntPtr>();
         foreach (string name in Required)
