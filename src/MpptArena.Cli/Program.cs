@@ -14,10 +14,13 @@ internal static class Program
           curve FILE.yaml          I-V and P-V curves and every MPP of a plant (or a scenario at --at SECONDS)
           compare BASELINE CURRENT compare two summaries (files or results folders); exit 1 on regression
           trackers                 list tracker kinds and their parameters
-          validate SCENARIO.yaml...check scenario files without running them
+          validate FILE.yaml...    check scenario, plant and sweep files without running them
           new-tracker NAME         scaffold a C# tracker project (--out DIR)
           sweep SWEEP.yaml         run a parameter sweep (with --shard K/N for one part of it)
           merge SHARD_DIR...       join sweep shards into one result
+
+        results go to a new or empty --out folder; an earlier result of the arena is replaced only with
+          --force, and a folder with anything else in it never is
 
         exit codes: 0 ok (a complete result and every gate passed), 1 a gate failed (threshold, regression,
           or a tracker that failed, however it failed), 2 bad input, 3 internal error,
