@@ -378,6 +378,29 @@ def main():
         write_case(f"structure-{name}", files, run("scenario.yaml"), "scenario.yaml")
         total += 1
 
+    # Structural sweep cases.
+    sweep_text = read("sweep.yaml").replace("scenarios: [scenario.yaml]", "scenarios: [{base}/scenario.yaml]")
+    sweep_structural = {
+        "too-many-cases": sweep_text.replace("step_v: { from: 1, to: 3, step: 1 }", "step_v: { from: 1, to: 10000, step: 0.1 }\n      start_fraction: { from: 0, to: 1.2, step: 0.001 }").replace("      start_fraction: 0.8\n", ""),
+        "heatmap-axis-unknown": sweep_text.replace("heatmap: { x: period_ms, y: step_v }", "heatmap: { x: period_ms, y: stepsize }"),
+        "objective-unknown": sweep_text.replace("objective: tracking_efficiency", "objective: speed"),
+        "objective-window-unknown": sweep_text.replace("objective: tracking_efficiency", "objective: window:late"),
+        "tune-score-unknown": sweep_text.replace("score: tracking_efficiency, goal", "score: speed, goal"),
+        "tune-tracker-unknown": sweep_text.replace("tune: { tracker: po,", "tune: { tracker: nope,"),
+        "period-not-whole-steps": sweep_text.replace("period_ms: [10, 20]", "period_ms: [10, 20.05]"),
+        "duty-tracker-on-ideal-source-scenario": sweep_text.replace("type: incremental_conductance", "type: perturb_observe_duty").replace(
+            "step_v: { log_from: 0.5, log_to: 4, count: 3 }", "step_duty: 0.01").replace("scenarios: [{base}/scenario.yaml]", "scenarios: [ideal.yaml]"),
+        "scenario-missing": sweep_text.replace("scenarios: [{base}/scenario.yaml]", "scenarios: [nowhere.yaml]"),
+        "same-case-twice": sweep_text.replace("  - name: inc\n    type: incremental_conductance", "  - name: po\n    type: incremental_conductance"),
+    }
+    ideal = scenario_text.replace("type: boost", "type: ideal_source").replace("file: profile.csv", "file: {base}/profile.csv")
+    for name, text in sweep_structural.items():
+        files = {"sweep.yaml": text}
+        if "ideal.yaml" in text:
+            files["ideal.yaml"] = ideal
+        write_case(f"sweep-structure-{name}", files, "sweep sweep.yaml --out {out} --no-plots --quiet", "sweep.yaml")
+        total += 1
+
     # CSV profiles.
     csv_cases = {
         "text-value": "time_s,g\n0,650\n0.05,bright\n1,700\n",

@@ -90,8 +90,8 @@ internal static class TrackerEntryReader
             (probe as IDisposable)?.Dispose();
         }
         if (kind is not { } k || Runs.ScenarioRunner.CreateFrontEnd(converter).Accepts(k)) return;
-        string where = scenarioName is null ? "the scenario's" : $"scenario '{scenarioName}' has an";
-        throw t.Error(t.Node("type")!, $"'{t.Text("type")}' commands {Describe(k)}, and {where} {ConverterName(converter.Kind)} converter takes only {Describe(Trackers.TrackerCommandKind.VoltageReference)}: use 'converter: {{ type: boost }}' or 'buck' for a duty-cycle tracker", "type");
+        string of = scenarioName is null ? "the scenario's" : $"scenario '{scenarioName}''s";
+        throw t.Error(t.Node("type")!, $"'{t.Text("type")}' commands {Describe(k)}, but {of} {ConverterName(converter.Kind)} converter takes only {Describe(Trackers.TrackerCommandKind.VoltageReference)}: use 'converter: {{ type: boost }}' or 'buck' for a duty-cycle tracker", "type");
     }
 
     /// <summary>A command kind in words.</summary>

@@ -15,6 +15,9 @@ public static class SweepLoader
 {
     private static readonly string[] TopKeys = ["name", "scenarios", "trackers", "plugins", "sampling", "objective", "heatmap", "tune"];
 
+    /// <summary>Most cases a sweep may hold (a million runs is days of work on a large machine).</summary>
+    public const int MaxCases = 1_000_000;
+
     /// <summary>Loads a sweep file.</summary>
     /// <param name="path">The YAML file.</param>
     /// <param name="registry">Tracker kinds that may be named.</param>
@@ -144,6 +147,11 @@ public static class SweepLoader
                     else axes.Add(axis);
                 }
             }
+            double settings = sampled ? 1 : axes.Aggregate(1.0, (n, a) => n * a.Values.Count);
+            if (settings * scenarios.Count > MaxCases)
+            {
+                throw t.Error(item, $"tracker '{name}' makes {settings * scenarios.Count:G3} cases ({settings:G3} settings x {scenarios.Count} scenarios); a sweep is limited to {MaxCases} cases: sweep fewer values or sample (sampling: {{ method: latin_hypercube, count: N }})", "parameters");
+            }
             var probeSettings = new TrackerSettings(descriptor.Parameters, fixedValues);
             foreach (var sc in scenarios) TrackerEntryReader.CheckCommandKind(t, descriptor, probeSettings, sc.Converter, sc.Name);
             list.Add(new SweepTracker(name, descriptor, fixedValues, axes, period) { Limits = limits });
@@ -203,7 +211,7 @@ public static class SweepLoader
         if (s is null) return new SweepSampling(SweepSamplingMethod.Grid);
         string method = s.Text("method", "grid", ["grid", "random", "latin_hypercube"]);
         var m = method switch { "random" => SweepSamplingMethod.Random, "latin_hypercube" => SweepSamplingMethod.LatinHypercube, _ => SweepSamplingMethod.Grid };
-        int count = m == SweepSamplingMethod.Grid ? 0 : s.Integer("count", null, 1, 1_000_000);
+        int count = m == SweepSamplingMethod.Grid ? 0 : s.Integer("count", null, 1, MaxCases);
         string seedText = s.Has("seed") ? s.Scalar(s.Node("seed")!, "seed") : "1";
         if (!ulong.TryParse(seedText, out ulong seed)) throw s.Error(s.Node("seed")!, "'seed' must be a whole number of at least 0", "seed");
         return new SweepSampling(m, count, seed);

@@ -85,6 +85,7 @@ public partial class CorpusTests(ITestOutputHelper output)
         if (clock.Elapsed > Limit) return $"took {clock.Elapsed.TotalSeconds:0.0} s";
         if (exit != 2) return $"exit {exit}, not 2: {Tail(err)}";
         if (err.Contains("   at ", StringComparison.Ordinal) || err.Contains("internal error", StringComparison.Ordinal)) return "stack trace or internal error: " + Tail(err);
+        if (InternalName().Match(err) is { Success: true } name) return $"the message shows an internal name '{name.Value}': {Tail(err)}";
         string expect = spec["expect"];
         if (expect.StartsWith("arg:", StringComparison.Ordinal))
         {
@@ -113,6 +114,9 @@ public partial class CorpusTests(ITestOutputHelper output)
 
     private static IEnumerable<string> Split(string command) =>
         ArgumentPattern().Matches(command).Select(m => m.Value == "\"\"" ? "" : m.Value);
+
+    [GeneratedRegex(@"\bSystem\.[A-Z]\w+|`1|\bMpptArena\.[A-Z]\w*\.[A-Z]|\b(VoltageReference|DutyCycle|IdealSource)\b")]
+    private static partial Regex InternalName();
 
     [GeneratedRegex("\"\"|[^ ]+")]
     private static partial Regex ArgumentPattern();
