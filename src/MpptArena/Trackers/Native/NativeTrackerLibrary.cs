@@ -39,6 +39,7 @@ public sealed unsafe class NativeTrackerLibrary
     {
         Origin = TrackerOrigin.Native,
         OriginPath = Path,
+        DeclaredCommandKind = CommandKind,
     };
 
     /// <summary>Loads and checks a library.</summary>
