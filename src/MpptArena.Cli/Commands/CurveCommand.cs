@@ -34,7 +34,7 @@ internal static class CurveCommand
         CurvePlots.PowerVoltage(title, v, i, peaks).SavePng(Path.Combine(folder, "pv-curve.png"), PlotWriter.DefaultWidth, PlotWriter.DefaultHeight);
 
         var c = CultureInfo.InvariantCulture;
-        var table = new Table().Border(TableBorder.Rounded).Title($"[bold]{Markup.Escape(title)}[/]: Voc {exact.OpenCircuitVoltageV.ToString("0.00", c)} V, Isc {exact.ShortCircuitCurrentA.ToString("0.000", c)} A");
+        var table = new Table().Border(TableBorder.Rounded).Title($"[bold]{Markup.Escape(title)}[/]: Voc {exact.OpenCircuitVoltageV.ToString("0.00", c)} V, Isc {Math.Max(exact.ShortCircuitCurrentA, 0.0).ToString("0.000", c)} A");
         table.AddColumn("peak");
         table.AddColumn(new TableColumn("voltage V").RightAligned());
         table.AddColumn(new TableColumn("current A").RightAligned());

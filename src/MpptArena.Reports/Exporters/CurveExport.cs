@@ -28,8 +28,8 @@ public static class CurveExport
         var sb = new StringBuilder("voltage_v,current_a,power_w\n");
         for (int k = 0; k < voltageV.Length; k++)
         {
-            sb.Append(voltageV[k].ToString("G9", c)).Append(',').Append(currentA[k].ToString("G9", c)).Append(',')
-              .Append((voltageV[k] * currentA[k]).ToString("G9", c)).Append('\n');
+            sb.Append(voltageV[k].ToString("R", c)).Append(',').Append(currentA[k].ToString("R", c)).Append(',')
+              .Append((voltageV[k] * currentA[k]).ToString("R", c)).Append('\n');
         }
         return sb.ToString();
     }
@@ -43,7 +43,7 @@ public static class CurveExport
         {
             var p = peaks.Peaks[k];
             sb.Append(k + 1).Append(',').Append(k == peaks.GlobalIndex ? "true" : "false").Append(',')
-              .Append(p.VoltageV.ToString("G9", c)).Append(',').Append(p.CurrentA.ToString("G9", c)).Append(',').Append(p.PowerW.ToString("G9", c)).Append('\n');
+              .Append(p.VoltageV.ToString("R", c)).Append(',').Append(p.CurrentA.ToString("R", c)).Append(',').Append(p.PowerW.ToString("R", c)).Append('\n');
         }
         return sb.ToString();
     }

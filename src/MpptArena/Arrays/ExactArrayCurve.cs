@@ -44,8 +44,10 @@ public sealed class ExactArrayCurve : IArrayCurve
 
     private double FindOpenCircuitVoltage()
     {
-        // Strings in parallel: the array is at open circuit where the summed current is zero.
-        // Bracket between the lowest and highest string open-circuit voltage and bisect.
+        // Strings in parallel: the array is at open circuit where the summed current is zero (Kirchhoff's
+        // current law). Bracket between the lowest and highest string open-circuit voltage and bisect on the
+        // sign of the current alone: a blocked string leaks only about 1e-11 A, so any tolerance on the
+        // current would accept the higher string's own open-circuit voltage.
         double lo = double.PositiveInfinity, hi = 0;
         foreach (var s in _strings)
         {
@@ -55,6 +57,6 @@ public sealed class ExactArrayCurve : IArrayCurve
         }
         if (hi <= 0) return 0;
         if (_strings.Length == 1 || hi - lo < 1e-12) return hi;
-        return MathNet.Numerics.RootFinding.Brent.FindRoot(CurrentAtVoltage, lo, hi, 1e-10 * hi, 200);
+        return Numerics.Bisection.FindSignChange(v => CurrentAtVoltage(v) > 0, lo, hi);
     }
 }

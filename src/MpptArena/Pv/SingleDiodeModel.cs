@@ -95,7 +95,12 @@ public static class SingleDiodeModel
     /// <param name="p">Model parameters.</param>
     public static double ShortCircuitCurrentA(in SingleDiodeParameters p) => CurrentAtVoltage(p, 0.0);
 
-    /// <summary>The maximum power point of one device by golden-section search on P(V).</summary>
+    /// <summary>
+    /// The maximum power point of one device: the root of dP/dV = I + V dI/dV on (0, Voc), with the slope in
+    /// closed form (<see cref="SlopeAtPoint"/>), found by bisection on its sign down to neighbouring doubles.
+    /// dP/dV is positive at V = 0 (it equals Isc) and negative at Voc (it equals Voc dI/dV), and P(V) of one
+    /// device has a single maximum, so the sign change is the maximum.
+    /// </summary>
     /// <param name="p">Model parameters.</param>
     /// <returns>(voltage [V], current [A], power [W]) at the maximum.</returns>
     public static (double VoltageV, double CurrentA, double PowerW) MaximumPowerPoint(in SingleDiodeParameters p)
@@ -103,7 +108,11 @@ public static class SingleDiodeModel
         double voc = OpenCircuitVoltageV(p);
         if (voc <= 0) return (0, 0, 0);
         var copy = p;
-        double vmp = GoldenSection.Maximise(v => v * CurrentAtVoltage(copy, v), 0.0, voc, voc * 1e-13);
+        double vmp = Bisection.FindSignChange(v =>
+        {
+            double i = CurrentAtVoltage(copy, v);
+            return i + v * SlopeAtPoint(copy, v, i) > 0;
+        }, 0.0, voc);
         double imp = CurrentAtVoltage(p, vmp);
         return (vmp, imp, vmp * imp);
     }

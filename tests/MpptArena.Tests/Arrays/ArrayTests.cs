@@ -186,4 +186,21 @@ public class ArrayTests
         }
         Assert.True(worstOverStates < 1e-4, $"worst power error {worstOverStates:E2} of Pmpp");
     }
+
+    [Fact]
+    public void ExactOpenCircuitVoltageWithBlockingDiodesIsWhereTheStringCurrentsCancel()
+    {
+        // Kirchhoff's current law at open circuit: the summed string currents are zero, so the string with the
+        // higher open-circuit voltage drives the other's blocking-diode leakage (about 1.5e-11 A for a silicon
+        // diode of 0.7 V at 10 A, common practice) and sits slightly below its own open-circuit voltage.
+        var array = ReferenceModules.Array(10, 2, BypassDiode.FromForwardVoltage(0.7, 10.0, 1.0));
+        var c = array.UniformConditions(800, 25);
+        for (int k = c.CellTemperatureC.Length / 2; k < c.CellTemperatureC.Length; k++) c.CellTemperatureC[k] = 45; // the second string runs hotter
+        var exact = array.Solve(c);
+        double voc = exact.OpenCircuitVoltageV;
+        double highest = exact.Strings.Max(s => s.VoltageAtCurrent(0.0, out _));
+        Assert.True(voc < highest, $"Voc {voc} V is the higher string's own {highest} V");
+        Assert.True(exact.CurrentAtVoltage(Math.BitDecrement(Math.BitDecrement(voc))) > 0 && exact.CurrentAtVoltage(Math.BitIncrement(Math.BitIncrement(voc))) < 0, "the current changes sign at Voc");
+        Assert.Equal(new PreparedArrayCurve(exact).OpenCircuitVoltageV, voc, 1e-4);
+    }
 }

@@ -114,4 +114,21 @@ public class SingleDiodeModelTests
             }
         }
     }
+
+    [Fact]
+    public void MaximumPowerPointMatchesA50DigitSolutionTo1e12()
+    {
+        // Reference: the single-diode equation I = IL - I0 (exp((V + I Rs)/a) - 1) - (V + I Rs)/Rsh and
+        // dP/dV = 0 solved at 50 significant digits with mpmath 1.3 (F. Johansson et al., mpmath: a Python
+        // library for arbitrary-precision floating-point arithmetic, 2023; findroot and diff) for
+        // IL 9.5 A, I0 1.2e-10 A, a 1.55 V, Rs 0.35 Ohm, Rsh 350 Ohm:
+        // Vmp = 31.1756826463662680659288769883 V, Imp = 8.91397057876026453133378280915 A,
+        // Pmp = 277.899117882475857907501370291 W, Voc = 38.8787420978415672461696908067 V.
+        var p = SingleDiodeParameters.FromShuntResistance(9.5, 1.2e-10, 1.55, 0.35, 350);
+        var (vmp, imp, pmp) = SingleDiodeModel.MaximumPowerPoint(p);
+        Assert.Equal(31.1756826463662680659288769883, vmp, 1e-12 * 31.18);
+        Assert.Equal(8.91397057876026453133378280915, imp, 1e-12 * 8.914);
+        Assert.Equal(277.899117882475857907501370291, pmp, 1e-13 * 277.9);
+        Assert.Equal(38.8787420978415672461696908067, SingleDiodeModel.OpenCircuitVoltageV(p), 1e-12 * 38.88);
+    }
 }
