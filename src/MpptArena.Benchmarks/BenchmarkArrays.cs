@@ -8,7 +8,7 @@ namespace MpptArena.Benchmarks;
 /// <summary>The array the performance targets name: 2 strings x 10 modules x 3 substrings, every substring under its own irradiance.</summary>
 internal static class BenchmarkArrays
 {
-    public static readonly ModuleModel Module = DeSotoDatasheetFit.Fit(new ModuleDatasheet(9.50, 38.2, 9.00, 31.4, 60, 0.0045, -0.118));
+    public static readonly ModuleModel Module = DeSotoDatasheetFit.Fit(new ModuleDatasheet(9.50, 38.2, 8.95, 31.0, 60, 0.0045, -0.135));
 
     public static PvArray TwoByTen() => new(Module, new ArrayLayout(3, 10, 2, BypassDiode.FromForwardVoltage(0.45, 10.0)));
 

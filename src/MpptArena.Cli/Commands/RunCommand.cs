@@ -22,6 +22,7 @@ internal static class RunCommand
         var registry = Plugins.Registry(a.Options("--plugin"));
         var scenario = ScenarioLoader.Load(a.Positional[0], registry);
         scenario = ApplyOptions(scenario, a);
+        foreach (string w in scenario.Warnings) StandardOutput.Error.WriteLine($"warning: {w}");
         var gates = Gate.ParseAll(a.Options("--fail-below"), a.Options("--fail-above"));
 
         gates.CheckAgainst(scenario.Trackers.Select(t => t.Name).ToList(),

@@ -20,6 +20,7 @@ internal static class SweepCommand
         var a = new ArgumentReader(args, "sweep", ["--out", "--shard", "--threads", "--plugin"], ["--tune", "--no-plots", "--quiet", "--force"]);
         a.RequirePositional(1, Usage);
         var sweep = SweepLoader.Load(a.Positional[0], Plugins.Registry(a.Options("--plugin")), ScoreCatalog.All.Select(s => s.Key).ToList());
+        foreach (string w in sweep.Scenarios.SelectMany(x => x.Warnings).Distinct()) StandardOutput.Error.WriteLine($"warning: {w}");
         int threads = a.Option("--threads") is { } t
             ? (int.TryParse(t, out int n) && n >= 1 ? n : throw new ArenaInputException($"--threads '{t}' must be a whole number of at least 1", "--threads"))
             : System.Environment.ProcessorCount;

@@ -27,12 +27,14 @@ internal static class ValidateCommand
                 if (File.Exists(file) && File.ReadLines(file).Any(l => l.StartsWith("scenarios:", StringComparison.Ordinal)))
                 {
                     var sweep = SweepLoader.Load(file, registry, ScoreCatalog.All.Select(k => k.Key).ToList());
+                    foreach (string w in sweep.Scenarios.SelectMany(x => x.Warnings).Distinct()) StandardOutput.Error.WriteLine($"warning {w}");
                     StandardOutput.Out.WriteLine($"ok    {file}: sweep '{sweep.Name}', {SweepPlanner.Cases(sweep).Count} cases over {sweep.Scenarios.Count} scenario(s)");
                     continue;
                 }
                 var s = ScenarioLoader.Load(file, registry);
                 StandardOutput.Out.WriteLine(string.Create(System.Globalization.CultureInfo.InvariantCulture,
-                    $"ok    {file}: scenario '{s.Name}', {s.Trackers.Count} trackers, {s.Simulation.DurationS:G6} s simulated"));
+                    $"ok    {file}: scenario '{s.Name}', {s.Trackers.Count} trackers, {s.Simulation.DurationS:G6} s simulated, module ideality factor {s.Array.Module.IdealityFactor:0.000}"));
+                foreach (string w in s.Warnings) StandardOutput.Error.WriteLine($"warning {w}");
             }
             catch (ArenaInputException ex)
             {

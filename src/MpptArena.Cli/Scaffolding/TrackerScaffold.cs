@@ -211,11 +211,11 @@ internal static class TrackerScaffold
           datasheet:
             short_circuit_current_a: 9.50
             open_circuit_voltage_v: 38.2
-            mpp_current_a: 9.00
-            mpp_voltage_v: 31.4
+            mpp_current_a: 8.95
+            mpp_voltage_v: 31.0
             cells_in_series: 60
             isc_temperature_coefficient_a_per_k: 0.0045
-            voc_temperature_coefficient_v_per_k: -0.118
+            voc_temperature_coefficient_v_per_k: -0.135
         array:
           modules_per_string: 10
         converter:

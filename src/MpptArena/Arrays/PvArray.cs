@@ -22,7 +22,8 @@ public sealed record PvArray(ModuleModel Module, ArrayLayout Layout)
     public SubstringModel Substring(double irradianceWm2, double cellTemperatureC)
     {
         var cells = Module.At(irradianceWm2, cellTemperatureC).ScaledToCellFraction(1.0 / Layout.SubstringsPerModule);
-        return new SubstringModel(cells, Layout.Bypass.SaturationCurrentA, Layout.Bypass.IdealityVoltageV(cellTemperatureC));
+        // The bypass diode sits in the module's junction box: taken at the cells' temperature (common practice).
+        return new SubstringModel(cells, Layout.Bypass.SaturationCurrentAt(cellTemperatureC), Layout.Bypass.IdealityVoltageV(cellTemperatureC));
     }
 
     /// <summary>The exact characteristic of the array under <paramref name="conditions"/>.</summary>
@@ -75,7 +76,7 @@ public sealed record PvArray(ModuleModel Module, ArrayLayout Layout)
             double meanT = weightedT / perString;
             strings.Add(blocking is null
                 ? new StringModel(distinct, counts)
-                : new StringModel(distinct, counts, blocking.SaturationCurrentA, blocking.IdealityVoltageV(meanT)));
+                : new StringModel(distinct, counts, blocking.SaturationCurrentAt(meanT), blocking.IdealityVoltageV(meanT)));
             stringMakeUps.Add(makeUp);
             stringCounts.Add(1);
         }

@@ -18,6 +18,14 @@ public sealed record ModuleModel(
     double ReferenceCellTemperatureC = 25.0,
     double BandGapEv = DeSotoTranslation.SiliconBandGapEv)
 {
+    /// <summary>
+    /// Diode ideality factor n [-] per cell: a = n Ns k T / q at the reference temperature. About 1 to 2 for
+    /// crystalline silicon (1 for pure diffusion current, 2 for recombination in the depletion region:
+    /// C. T. Sah, R. N. Noyce, W. Shockley, Proc. IRE 45(9), 1957); a fit outside that range fits the curve
+    /// but not the physics.
+    /// </summary>
+    public double IdealityFactor => Reference.ModifiedIdealityV / (CellsInSeries * PhysicalConstants.ThermalVoltageV(PhysicalConstants.KelvinFromCelsius(ReferenceCellTemperatureC)));
+
     /// <summary>Single-diode parameters of the whole module at an operating condition.</summary>
     /// <param name="irradianceWm2">Effective irradiance on the cells [W/m2].</param>
     /// <param name="cellTemperatureC">Cell temperature [degC].</param>

@@ -35,6 +35,9 @@ public sealed record Scenario(
     /// </summary>
     public string InputDigest { get; init; } = "";
 
+    /// <summary>What the scenario allows but a practitioner should look at, each with its file position (e.g. a datasheet that fits to an unphysical ideality factor).</summary>
+    public IReadOnlyList<string> Warnings { get; init; } = [];
+
     /// <summary>Array open-circuit voltage at STC [V], as firmware would be configured.</summary>
     public double NominalOpenCircuitVoltageV
     {

@@ -102,7 +102,10 @@ public static class ScenarioLoader
     {
         string name = ReadName(root);
         string description = root.Text("description", "");
-        var module = ReadModule(Required(root, "module", ["datasheet", "single_diode"]));
+        var moduleMap = Required(root, "module", ["datasheet", "single_diode"]);
+        var module = ReadModule(moduleMap);
+        var warnings = new List<string>();
+        if (IdealityWarning(module) is { } w) warnings.Add($"{moduleMap.Location}: {w}");
         var array = ReadArray(Required(root, "array", ArrayKeys), module);
         var sensors = ReadSensors(Required(root, "sensors", ["voltage", "current"]));
         var converter = ReadConverter(Required(root, "converter", ConverterKeys), sensors);
@@ -118,11 +121,27 @@ public static class ScenarioLoader
         simulation = (simulation with { PlantStepGiven = simulationMap.Has("plant_step_us"), EnvironmentStepGiven = simulationMap.Has("environment_step_ms") })
             .WithStepsFor(converter.Kind, trackers.Select(t => t.SamplePeriodS));
         var scoring = ReadScoring(root.Map("scoring", ["settling_band_fraction", "settling_hold_s", "static_allowance_s", "windows", "curve_snapshots_s"]), windows, simulation);
-        return new Scenario(name, description, array, converter, sensors, environment, simulation, trackers, scoring) { InputDigest = ContentDigest.OfParts(sources) };
+        return new Scenario(name, description, array, converter, sensors, environment, simulation, trackers, scoring) { InputDigest = ContentDigest.OfParts(sources), Warnings = warnings };
     }
 
     private static YamlMap Required(YamlMap parent, string key, IReadOnlyCollection<string> allowed) =>
         parent.Map(key, allowed) ?? throw new ArenaInputException($"missing required section '{key}' in '{parent.Path}'", key, parent.Location);
+
+    /// <summary>Lowest and highest ideality factor a crystalline-silicon cell has (Sah, Noyce, Shockley 1957: 1 diffusion, 2 recombination).</summary>
+    public const double MinIdealityFactor = 1.0, MaxIdealityFactor = 2.0;
+
+    /// <summary>A warning when the module's ideality factor is outside 1 to 2, naming what to check; null otherwise.</summary>
+    public static string? IdealityWarning(ModuleModel module)
+    {
+        double n = module.IdealityFactor;
+        if (n >= MinIdealityFactor * (1 - 1e-9) && n <= MaxIdealityFactor) return null;
+        var inv = System.Globalization.CultureInfo.InvariantCulture;
+        string direction = n < MinIdealityFactor ? "below the physical lower limit of 1" : "above the 2 of recombination-dominated cells";
+        string fix = n < MinIdealityFactor
+            ? "a more negative Voc temperature coefficient or a lower fill factor (MPP voltage or current) fits higher"
+            : "a less negative Voc temperature coefficient or a higher fill factor fits lower";
+        return string.Format(inv, "the module fits to an ideality factor of {0:0.000} per cell, {1}; the curve at STC is right but its change with temperature and irradiance is not physical: check the datasheet ({2})", n, direction, fix);
+    }
 
     private static ModuleModel ReadModule(YamlMap m)
     {
@@ -154,7 +173,8 @@ public static class ScenarioLoader
     }
 
     private static BypassDiode ReadDiode(YamlMap d) =>
-        BypassDiode.FromForwardVoltage(d.Number("forward_voltage_v", null, 0.05, 2, true), d.Positive("at_current_a", null, MaxCurrentA), d.Number("ideality", 1.0, 0.5, 3));
+        BypassDiode.FromForwardVoltage(d.Number("forward_voltage_v", null, 0.05, 2, true), d.Positive("at_current_a", null, MaxCurrentA), d.Number("ideality", 1.0, 0.5, 3),
+            d.Text("material", "schottky", ["schottky", "silicon"]) == "silicon" ? DiodeMaterial.Silicon : DiodeMaterial.Schottky);
 
     private static PvArray ReadArray(YamlMap a, ModuleModel module)
     {
@@ -164,7 +184,7 @@ public static class ScenarioLoader
             throw a.Error(a.Node("substrings_per_module") ?? a.Node("array") ?? a.Required("substrings_per_module", "a divisor of cells_in_series"),
                 $"'substrings_per_module' = {perModule} does not divide the module's {module.CellsInSeries} cells evenly", "substrings_per_module");
         }
-        string[] diodeKeys = ["forward_voltage_v", "at_current_a", "ideality"];
+        string[] diodeKeys = ["forward_voltage_v", "at_current_a", "ideality", "material"];
         var bypass = a.Map("bypass_diode", diodeKeys) is { } b ? ReadDiode(b) : BypassDiode.FromForwardVoltage(0.45, 10.0);
         var blocking = a.Map("blocking_diode", diodeKeys) is { } k ? ReadDiode(k) : null;
         var layout = new ArrayLayout(perModule, a.Integer("modules_per_string", null, 1, 1000), a.Integer("strings", 1, 1, 1000), bypass, blocking);

@@ -203,4 +203,23 @@ public class ArrayTests
         Assert.True(exact.CurrentAtVoltage(Math.BitDecrement(Math.BitDecrement(voc))) > 0 && exact.CurrentAtVoltage(Math.BitIncrement(Math.BitIncrement(voc))) < 0, "the current changes sign at Voc");
         Assert.Equal(new PreparedArrayCurve(exact).OpenCircuitVoltageV, voc, 1e-4);
     }
+
+    [Theory]
+    [InlineData(DiodeMaterial.Schottky, 0.45, -0.0016, -0.0006)]
+    [InlineData(DiodeMaterial.Silicon, 0.70, -0.0021, -0.0011)]
+    public void BypassDiodeForwardVoltageFallsAsItWarms(DiodeMaterial material, double forwardV, double minVPerK, double maxVPerK)
+    {
+        // A diode's forward voltage at fixed current falls with temperature, about 1-2 mV/K (common practice);
+        // with the SPICE law (Nagel, ERL-M520, 1975) dVf/dT = (Vf - XTI n Vt - Eg) / T: -0.98 mV/K for a
+        // 0.45 V Schottky (Eg 0.69 eV, XTI 2) and -1.63 mV/K for a 0.70 V silicon diode (Eg 1.11 eV, XTI 3)
+        // at 25 degC. Checked here on the substring model: the voltage across a fully bypassed substring.
+        var diode = BypassDiode.FromForwardVoltage(forwardV, 10.0, 1.0, material);
+        double Vf(double t) => diode.IdealityVoltageV(t) * Math.Log(1 + 10.0 / diode.SaturationCurrentAt(t));
+        Assert.Equal(forwardV, Vf(25), 1e-12);
+        double slope = (Vf(85) - Vf(25)) / 60;
+        Assert.InRange(slope, minVPerK, maxVPerK);
+        var array = new PvArray(ReferenceModules.Fitted60, new ArrayLayout(3, 1, 1, diode));
+        var dark = array.Substring(0, 85);
+        Assert.Equal(-Vf(85), dark.VoltageAtCurrent(10.0, out _), 1e-3); // a dark substring carries 10 A through its diode
+    }
 }

@@ -75,4 +75,21 @@ public class DatasheetFitTests
         Assert.Equal(field, error.Field);
         Assert.Contains(field, error.Message);
     }
+
+    [Fact]
+    public void TheFittedIdealityFactorIsReportedAndOneOutsideOneToTwoIsWarnedAbout()
+    {
+        // The diode ideality factor of a crystalline-silicon cell lies between 1 (diffusion current) and 2
+        // (recombination in the depletion region): C. T. Sah, R. N. Noyce, W. Shockley, "Carrier generation
+        // and recombination in p-n junctions and p-n junction characteristics", Proc. IRE 45(9), 1957.
+        var bundled = DeSotoDatasheetFit.Fit(new ModuleDatasheet(9.50, 38.2, 8.95, 31.0, 60, 0.0045, -0.135));
+        Assert.InRange(bundled.IdealityFactor, 1.0, 2.0);
+        Assert.Null(MpptArena.Scenarios.ScenarioLoader.IdealityWarning(bundled));
+        var unphysical = ReferenceModules.Fitted60; // the tests' own invented sheet fits to about 0.95
+        Assert.InRange(unphysical.IdealityFactor, 0.9, 0.99);
+        Assert.Contains("below the physical lower limit of 1", MpptArena.Scenarios.ScenarioLoader.IdealityWarning(unphysical));
+        var yaml = TestScenarios.Yaml();
+        var s = TestScenarios.Parse(yaml);
+        Assert.Contains(s.Warnings, w => w.StartsWith("test.yaml:", StringComparison.Ordinal) && w.Contains("ideality factor of 0.95", StringComparison.Ordinal));
+    }
 }
