@@ -22,9 +22,11 @@ internal static class CurveCommand
         int points = (int)ParseNumber(a.Option("--points") ?? "1000", "--points", 10, MaxPoints);
         var (name, array, conditions) = ScenarioLoader.LoadCurveSetup(a.Positional[0], at);
         using var stage = StagedOutput.Begin(a.Option("--out") ?? Path.Combine("results", $"{name}-curve"), "curve", a.Flag("--force"), numberIfTaken: a.Option("--out") is null);
+        // Sampled and searched on the prepared curve (milliseconds); only the peaks are refined on the exact solve.
         var exact = array.Solve(conditions);
-        var peaks = MppSearch.FindPeaks(exact);
-        var (v, i) = CurveExport.Sample(exact, points);
+        var prepared = new PreparedArrayCurve(exact);
+        var peaks = MppSearch.RefineOnExact(MppSearch.FindPeaks(prepared), exact);
+        var (v, i) = CurveExport.Sample(prepared, points);
 
         string folder = stage.StagingPath;
         File.WriteAllText(Path.Combine(folder, "curve.csv"), CurveExport.Csv(v, i));

@@ -39,14 +39,27 @@ public sealed class ExactArrayCurve : IArrayCurve
         return sum;
     }
 
+    /// <summary>Array current [A] at voltage [V] and dI/dV [A/V]: Kirchhoff's current law over the strings, each slope the inverse of its series dV/dI.</summary>
+    public double CurrentAtVoltage(double voltageV, out double slopeAPerV)
+    {
+        double sum = 0, slope = 0;
+        for (int s = 0; s < _strings.Length; s++)
+        {
+            sum += _stringCount[s] * _strings[s].CurrentAtVoltage(voltageV, out double ds);
+            slope += _stringCount[s] * ds;
+        }
+        slopeAPerV = slope;
+        return sum;
+    }
+
     /// <summary>Array short-circuit current [A].</summary>
     public double ShortCircuitCurrentA => CurrentAtVoltage(0.0);
 
     private double FindOpenCircuitVoltage()
     {
         // Strings in parallel: the array is at open circuit where the summed current is zero (Kirchhoff's
-        // current law). Bracket between the lowest and highest string open-circuit voltage and bisect on the
-        // sign of the current alone: a blocked string leaks only about 1e-11 A, so any tolerance on the
+        // current law). Bracket between the lowest and highest string open-circuit voltage; the root is found
+        // to a tolerance on voltage alone: a blocked string leaks only about 1e-11 A, so a tolerance on the
         // current would accept the higher string's own open-circuit voltage.
         double lo = double.PositiveInfinity, hi = 0;
         foreach (var s in _strings)
@@ -57,6 +70,13 @@ public sealed class ExactArrayCurve : IArrayCurve
         }
         if (hi <= 0) return 0;
         if (_strings.Length == 1 || hi - lo < 1e-12) return hi;
-        return Numerics.Bisection.FindSignChange(v => CurrentAtVoltage(v) > 0, lo, hi);
+        // Newton in the bracket with the closed-form slope, stopping on the step in volts alone.
+        var current = new ArrayCurrent(this);
+        return Numerics.SafeguardedNewton.FindRoot(ref current, lo, hi, hi, 1e-12 * hi, out _);
+    }
+
+    private readonly struct ArrayCurrent(ExactArrayCurve curve) : Numerics.IFunctionWithSlope
+    {
+        public double Evaluate(double voltageV, out double slope) => curve.CurrentAtVoltage(voltageV, out slope);
     }
 }

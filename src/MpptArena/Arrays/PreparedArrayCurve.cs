@@ -64,6 +64,9 @@ public sealed class PreparedArrayCurve : IArrayCurve
     /// <inheritdoc/>
     public double CurrentAtVoltage(double voltageV) => _array.Evaluate(voltageV, out _);
 
+    /// <summary>Every maximum and minimum of the power P(V) = V I(V) on [<paramref name="fromV"/>, <paramref name="toV"/>], exactly as the prepared curve has them (<see cref="PiecewiseCubic.CriticalPointsOfXTimes"/>).</summary>
+    public List<(double X, bool IsMaximum)> PowerCriticalPoints(double fromV, double toV) => _array.CriticalPointsOfXTimes(fromV, toV);
+
     /// <summary>Array current [A] at voltage [V] and its slope dI/dV [A/V].</summary>
     public double CurrentAtVoltage(double voltageV, out double slopeAPerV) => _array.Evaluate(voltageV, out slopeAPerV);
 

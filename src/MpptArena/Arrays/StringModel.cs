@@ -99,6 +99,15 @@ public sealed class StringModel
         return SafeguardedNewton.FindRoot(ref mismatch, lo, hi, 0.5 * (lo + hi), 1e-13 * (1.0 + hi - lo), out _);
     }
 
+    /// <summary>String current [A] at string terminal voltage [V], and dI/dV [A/V] there (the inverse of the series dV/dI).</summary>
+    public double CurrentAtVoltage(double voltageV, out double slopeAPerV)
+    {
+        double i = CurrentAtVoltage(voltageV);
+        VoltageAtCurrent(i, out double dvdi);
+        slopeAPerV = 1.0 / dvdi;
+        return i;
+    }
+
     private readonly struct VoltageMismatch(StringModel s, double voltageV) : IFunctionWithSlope
     {
         public double Evaluate(double currentA, out double slope) => s.VoltageAtCurrent(currentA, out slope) - voltageV;

@@ -114,6 +114,81 @@ public sealed class PiecewiseCubic
     /// <summary>f(x).</summary>
     public double Evaluate(double x) => Evaluate(x, out _);
 
+    /// <summary>
+    /// Every critical point of g(x) = x f(x) on [<paramref name="from"/>, <paramref name="to"/>] inside the node
+    /// range, in rising x, each marked as a maximum (g' turns from positive to negative) or a minimum. On each
+    /// interval g is a quartic, so g' is a cubic; the roots of g'' (a quadratic, in closed form) split the
+    /// interval into pieces on which g' is monotone and changes sign at most once, and each sign change is
+    /// bisected to neighbouring doubles. No critical point can be stepped over, however narrow its hill.
+    /// </summary>
+    public List<(double X, bool IsMaximum)> CriticalPointsOfXTimes(double from, double to)
+    {
+        var result = new List<(double X, bool IsMaximum)>();
+        from = Math.Max(from, _xFirst);
+        to = Math.Min(to, _xLast);
+        if (!(to > from)) return result;
+        int previousSign = 0;
+        Span<double> cuts = stackalloc double[4];
+        for (int j = 0; j < _pieces.Length; j++)
+        {
+            ref readonly var p = ref _pieces[j];
+            double h = 1.0 / p.InvH, x1 = p.X0 + h;
+            if (x1 <= from) continue;
+            if (p.X0 >= to) break;
+            // f(t) = c0 + c1 t + c2 t^2 + c3 t^3 with x = X0 + h t; g(t) = (X0 + h t) f(t) = sum q_k t^k.
+            double c0 = p.Y0, c1 = p.M0H, c2 = -3 * p.Y0 + 3 * p.Y1 - 2 * p.M0H - p.M1H, c3 = 2 * p.Y0 - 2 * p.Y1 + p.M0H + p.M1H;
+            double q1 = p.X0 * c1 + h * c0, q2 = p.X0 * c2 + h * c1, q3 = p.X0 * c3 + h * c2, q4 = h * c3;
+            // dg/dt = q1 + 2 q2 t + 3 q3 t^2 + 4 q4 t^3 (same sign as dg/dx, h > 0); its derivative 2 q2 + 6 q3 t + 12 q4 t^2.
+            double tFrom = Math.Max(0.0, (from - p.X0) * p.InvH), tTo = Math.Min(1.0, (to - p.X0) * p.InvH);
+            int n = 0;
+            cuts[n++] = tFrom;
+            foreach (double r in QuadraticRoots(12 * q4, 6 * q3, 2 * q2))
+            {
+                if (r > tFrom && r < tTo) cuts[n++] = r;
+            }
+            if (n == 3 && cuts[2] < cuts[1]) (cuts[1], cuts[2]) = (cuts[2], cuts[1]);
+            cuts[n++] = tTo;
+            double Slope(double t) => q1 + t * (2 * q2 + t * (3 * q3 + t * 4 * q4));
+            for (int k = 0; k < n; k++)
+            {
+                double t = cuts[k];
+                int sign = Slope(t) > 0 ? 1 : -1;
+                if (previousSign != 0 && sign != previousSign)
+                {
+                    // The sign changed between the previous cut and this one, where g' is monotone.
+                    double lo = k > 0 ? cuts[k - 1] : 0.0, hi = t;
+                    bool rising = previousSign > 0;
+                    double root = Bisection.FindSignChange(u => Slope(u) > 0 == rising, lo, hi);
+                    result.Add((p.X0 + h * root, rising));
+                }
+                previousSign = sign;
+            }
+        }
+        return result;
+    }
+
+    /// <summary>Real roots of a t^2 + b t + c (a may be zero), by the cancellation-free form of the quadratic formula.</summary>
+    private static IEnumerable<double> QuadraticRoots(double a, double b, double c)
+    {
+        if (a == 0)
+        {
+            if (b != 0) yield return -c / b;
+            yield break;
+        }
+        double disc = b * b - 4 * a * c;
+        if (disc < 0) yield break;
+        double q = -0.5 * (b + Math.CopySign(Math.Sqrt(disc), b));
+        if (q != 0)
+        {
+            yield return q / a;
+            yield return c / q;
+        }
+        else
+        {
+            yield return 0.0;
+        }
+    }
+
     /// <summary>f(x) by a binary search for its interval, without building the bucket index (for a one-off evaluation).</summary>
     internal double EvaluateOnce(double x)
     {

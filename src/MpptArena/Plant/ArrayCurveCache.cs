@@ -89,10 +89,7 @@ public sealed class ArrayCurveCache
         else
         {
             var curve = new PreparedArrayCurve(_array.Solve(_prepared), _tables, _strings);
-            // Every substring alike: no bypass diode conducts between 0 and Voc, the single-diode power curve
-            // has one maximum, and a coarse scan brackets it as well as a dense one (common practice).
-            int samples = IsUniform(_prepared) ? 64 : Math.Max(400, 25 * _array.Layout.SubstringsPerString);
-            entry = (curve, MppSearch.FindPeaks(curve, samples));
+            entry = (curve, MppSearch.FindPeaks(curve));
             if (_storedNodes + curve.NodeCount > MaxStoredNodes)
             {
                 _store.Clear();
@@ -135,16 +132,6 @@ public sealed class ArrayCurveCache
             same &= r == prepared[k];
         }
         return same;
-    }
-
-    private static bool IsUniform(ArrayConditions c)
-    {
-        double g = c.IrradianceWm2[0], t = c.CellTemperatureC[0];
-        for (int k = 1; k < c.IrradianceWm2.Length; k++)
-        {
-            if (c.IrradianceWm2[k] != g || c.CellTemperatureC[k] != t) return false;
-        }
-        return true;
     }
 
     /// <summary>

@@ -222,4 +222,95 @@ public class ArrayTests
         var dark = array.Substring(0, 85);
         Assert.Equal(-Vf(85), dark.VoltageAtCurrent(10.0, out _), 1e-3); // a dark substring carries 10 A through its diode
     }
+
+    [Theory]
+    [InlineData(10, 3, 11)]
+    [InlineData(10, 3, 12)]
+    [InlineData(20, 4, 13)]
+    [InlineData(20, 4, 14)]
+    [InlineData(20, 4, 15)]
+    public void EveryMaximumDownToTheStatedProminenceIsFoundOnParallelStringsWithAllSubstringsDifferent(int modulesPerString, int strings, int seed)
+    {
+        // Reference: the same strings tabulated 5000 times more finely (1e-8 V per substring) and sampled every
+        // 2 mV, with the topographic prominence of each local maximum (its height above the higher of the
+        // lowest points separating it from higher ground on either side). Every maximum of at least twice the
+        // stated prominence (1e-4 of Pmpp; twice, for the prepared curve's own error of up to 5.4e-5 of Pmpp)
+        // must be reported within 20 mV, and every reported one must be a maximum of the reference.
+        var array = ReferenceModules.Array(modulesPerString, strings);
+        var c = array.UniformConditions(0, 25);
+        var rng = new Random(seed);
+        for (int k = 0; k < c.IrradianceWm2.Length; k++)
+        {
+            c.IrradianceWm2[k] = 150 + 850 * rng.NextDouble();
+            c.CellTemperatureC[k] = 20 + 30 * rng.NextDouble();
+        }
+        var exact = array.Solve(c);
+        var prepared = new PreparedArrayCurve(exact);
+        var found = MppSearch.FindPeaks(prepared);
+        double iscMax = exact.Strings.Max(s => s.MaxShortCircuitCurrentA);
+        var fine = exact.Strings.Select(s => new PreparedStringCurve(s, -5 * iscMax, 1.02 * iscMax + 1e-3, 1e-8)).ToArray();
+        double voc = prepared.OpenCircuitVoltageV;
+        int n = (int)(voc / 0.002);
+        var p = new double[n + 1];
+        for (int i = 0; i <= n; i++)
+        {
+            double v = voc * i / n, current = 0;
+            for (int s = 0; s < fine.Length; s++) current += exact.StringCounts[s] * fine[s].CurrentAtVoltage(v, out _);
+            p[i] = v * current;
+        }
+        double pmax = p.Max();
+        var reference = new List<(double V, double Prominence)>();
+        for (int i = 1; i < n; i++)
+        {
+            if (!(p[i] > p[i - 1] && p[i] >= p[i + 1])) continue;
+            double left = p[i], right = p[i];
+            for (int j = i - 1; j >= 0 && p[j] <= p[i]; j--) left = Math.Min(left, p[j]);
+            for (int j = i + 1; j <= n && p[j] <= p[i]; j++) right = Math.Min(right, p[j]);
+            reference.Add((voc * i / n, p[i] - Math.Max(left, right)));
+        }
+        var clear = reference.Where(r => r.Prominence >= 2 * MppSearch.MinProminenceShare * pmax).ToList();
+        Assert.True(clear.Count >= 5, $"the state has only {clear.Count} clear maxima");
+        foreach (var r in clear)
+        {
+            Assert.True(found.Peaks.Any(f => Math.Abs(f.VoltageV - r.V) < 0.02), $"maximum at {r.V:F3} V (prominence {r.Prominence / pmax:E1} of Pmpp) not reported; reported: {string.Join(", ", found.Peaks.Select(f => f.VoltageV.ToString("F3")))}");
+        }
+        foreach (var f in found.Peaks)
+        {
+            Assert.True(reference.Any(r => Math.Abs(f.VoltageV - r.V) < 0.02), $"reported maximum at {f.VoltageV:F3} V is not a maximum of the reference");
+        }
+        Assert.Equal(pmax, found.Global.PowerW, 1e-4 * pmax);
+
+        // The search itself skips nothing: every maximum of the prepared curve sampled every 2 mV with a
+        // prominence of at least the stated 1e-4 of Pmpp (plus 5 % for the sampling) is reported.
+        var own = new double[n + 1];
+        for (int i = 0; i <= n; i++) own[i] = voc * i / n * prepared.CurrentAtVoltage(voc * i / n);
+        for (int i = 1; i < n; i++)
+        {
+            if (!(own[i] > own[i - 1] && own[i] >= own[i + 1])) continue;
+            double left = own[i], right = own[i];
+            for (int j = i - 1; j >= 0 && own[j] <= own[i]; j--) left = Math.Min(left, own[j]);
+            for (int j = i + 1; j <= n && own[j] <= own[i]; j++) right = Math.Min(right, own[j]);
+            double prominence = own[i] - Math.Max(left, right);
+            if (prominence < 1.05 * MppSearch.MinProminenceShare * pmax) continue;
+            Assert.True(found.Peaks.Any(f => Math.Abs(f.VoltageV - voc * i / n) < 0.01), $"prepared-curve maximum at {voc * i / n:F3} V (prominence {prominence / pmax:E1} of Pmpp) not reported");
+        }
+    }
+
+    [Fact]
+    public void PeaksRefinedOnTheExactSolveSitWhereItsPowerSlopeIsZero()
+    {
+        // dP/dV = I + V dI/dV = 0 at a maximum of the exact solve (the exact curve's own slope, Kirchhoff's current
+        // law over strings whose dV/dI is the sum over their substrings).
+        var array = ReferenceModules.Array(4, 2);
+        var c = ReferenceModules.RandomShading(array, 30, 21);
+        var exact = array.Solve(c);
+        var refined = MppSearch.RefineOnExact(MppSearch.FindPeaks(new PreparedArrayCurve(exact)), exact);
+        Assert.True(refined.Peaks.Count >= 2);
+        foreach (var peak in refined.Peaks)
+        {
+            double i = exact.CurrentAtVoltage(peak.VoltageV, out double di);
+            Assert.True(Math.Abs(i + peak.VoltageV * di) < 1e-9 * exact.ShortCircuitCurrentA, $"dP/dV = {i + peak.VoltageV * di:E2} A at {peak.VoltageV} V");
+            Assert.True(peak.PowerW >= (peak.VoltageV - 1e-3) * exact.CurrentAtVoltage(peak.VoltageV - 1e-3) && peak.PowerW >= (peak.VoltageV + 1e-3) * exact.CurrentAtVoltage(peak.VoltageV + 1e-3));
+        }
+    }
 }
