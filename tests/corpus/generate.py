@@ -228,6 +228,32 @@ def mutations(value):
     return {}
 
 
+def parts_of(path):
+    return re.findall(r"[^.\[\]]+|\[\d+\]", path)
+
+
+def key_of(part):
+    return int(part[1:-1]) if part.startswith("[") else part
+
+
+def slug_of(path):
+    return re.sub(r"[^A-Za-z0-9_.-]+", "_", path)[:80]
+
+
+def mutated(base, path, mutation, replacement):
+    """A copy of base with the value at path deleted or replaced."""
+    doc = deep_copy(base)
+    target = doc
+    for part in parts_of(path)[:-1]:
+        target = target[key_of(part)]
+    k = key_of(parts_of(path)[-1])
+    if mutation == "delete":
+        del target[k]
+    else:
+        target[k] = replacement
+    return doc
+
+
 def is_still_valid(kind, path, mutation):
     if (kind, path, mutation) in STILL_VALID:
         return True
@@ -262,18 +288,8 @@ def yaml_cases(kind, base_name, command_of, extra_files, adapt=lambda d: d):
         for m, replacement in cases.items():
             if is_still_valid(kind, path, m):
                 continue
-            doc = deep_copy(base)
-            target = doc
-            for part in re.findall(r"[^.\[\]]+|\[\d+\]", path)[:-1]:
-                target = target[int(part[1:-1])] if part.startswith("[") else target[part]
-            last = re.findall(r"[^.\[\]]+|\[\d+\]", path)[-1]
-            k = int(last[1:-1]) if last.startswith("[") else last
-            if m == "delete":
-                del target[k]
-            else:
-                target[k] = replacement
-            slug = re.sub(r"[^A-Za-z0-9_.-]+", "_", path)[:80]
-            name = f"{kind}-{slug}-{m}"
+            doc = mutated(base, path, m, replacement)
+            name = f"{kind}-{slug_of(path)}-{m}"
             write_case(name, {base_name: emit(doc), **extra_files}, command_of(base_name), base_name)
             count += 1
         if isinstance(parent, dict) and isinstance(original, (int, float, str)) and not isinstance(original, bool):
@@ -450,18 +466,8 @@ def main():
         if required:
             muts["delete"] = None
         for m, replacement in muts.items():
-            doc = deep_copy(summary)
-            target = doc
-            for part in re.findall(r"[^.\[\]]+|\[\d+\]", path)[:-1]:
-                target = target[int(part[1:-1])] if part.startswith("[") else target[part]
-            last = re.findall(r"[^.\[\]]+|\[\d+\]", path)[-1]
-            k = int(last[1:-1]) if last.startswith("[") else last
-            if m == "delete":
-                del target[k]
-            else:
-                target[k] = replacement
-            slug = re.sub(r"[^A-Za-z0-9_.-]+", "_", path)[:80]
-            write_case(f"summary-{slug}-{m}", {"summary.json": json.dumps(doc, indent=2)}, compare, "summary.json")
+            doc = mutated(summary, path, m, replacement)
+            write_case(f"summary-{slug_of(path)}-{m}", {"summary.json": json.dumps(doc, indent=2)}, compare, "summary.json")
             total += 1
     twice = deep_copy(summary)
     twice["trackers"].append(twice["trackers"][0])
