@@ -14,6 +14,13 @@ public sealed class IsolatedTracker : IMpptTracker, IContainedTracker, IDisposab
     private bool _created;
     private long _calls;
     private TextWriter? _log;
+    private bool _counted;
+
+    /// <summary>Isolated trackers with an instance in this process now: each keeps a host thread spinning between calls.</summary>
+    private static int _active;
+
+    /// <summary>True when the spinning waiters (an arena thread and a host thread per active isolated tracker, at most) outnumber the cores.</summary>
+    private static bool Oversubscribed => 2 * Volatile.Read(ref _active) > System.Environment.ProcessorCount;
 
     /// <summary>An instance of the tracker <paramref name="launch"/> hosts, with checked settings.</summary>
     public IsolatedTracker(TrackerHostLaunch launch, HostHello hello, TrackerSettings settings, TrackerHostPool? pool = null)
@@ -53,6 +60,11 @@ public sealed class IsolatedTracker : IMpptTracker, IContainedTracker, IDisposab
             _host = null;
         }
         _host ??= _pool.Rent(_launch, Limits);
+        if (!_counted)
+        {
+            Interlocked.Increment(ref _active);
+            _counted = true;
+        }
         _host.Limits = Limits;
         _host.Log = _log;
         _host.ResetCallTime();
@@ -67,6 +79,7 @@ public sealed class IsolatedTracker : IMpptTracker, IContainedTracker, IDisposab
     public double Step(in TrackerMeasurement measurement)
     {
         var host = _host ?? throw new InvalidOperationException("Step before Reset");
+        host.ShareCores = Oversubscribed;
         double command = host.Step(measurement, ++_calls);
         if (host.CallTicks > Limits.RunS * System.Diagnostics.Stopwatch.Frequency)
         {
@@ -78,6 +91,11 @@ public sealed class IsolatedTracker : IMpptTracker, IContainedTracker, IDisposab
     /// <summary>Destroys the instance and gives the host back for the next one.</summary>
     public void Dispose()
     {
+        if (_counted)
+        {
+            Interlocked.Decrement(ref _active);
+            _counted = false;
+        }
         if (_host is null) return;
         if (!_host.Broken && _created)
         {

@@ -12,8 +12,10 @@ namespace MpptArena.Trackers.Isolation;
 /// <remarks>
 /// Layout (little-endian, 4096 bytes): request sequence (int64) at 0, reply sequence at 64, arena-asleep
 /// flag (int32) at 128, host-asleep flag at 192, the STEP payload after its sequence number (56 bytes) at
-/// 256, reply status (int32: 0 command, 1 error frame follows on the pipe) at 320 and the command (double)
-/// at 328. The writer stores the data, then the sequence, then (after a full fence) reads the peer's
+/// 256, reply status (int32: 0 command, 1 error frame follows on the pipe) at 320, the command (double)
+/// at 328, and the arena's core hint (int32) at 384: 1 when more threads wait by spinning than there are
+/// cores, so that both sides give their core away between looks; 0 when each has a core of its own and
+/// spins without yielding (a yield costs microseconds on a virtual machine). The writer stores the data, then the sequence, then (after a full fence) reads the peer's
 /// asleep flag and sends WAKE if it is set; the sleeper sets its flag, fences, and re-reads the sequence
 /// before it blocks. One of the two always sees the other (Dekker's argument), so no wake is lost;
 /// a stale WAKE only makes the sleeper look once more.
@@ -22,7 +24,7 @@ public sealed unsafe class SharedStepSlot : IDisposable
 {
     /// <summary>File size [bytes].</summary>
     public const int Bytes = 4096;
-    private const int RequestOffset = 0, ReplyOffset = 64, ArenaAsleepOffset = 128, HostAsleepOffset = 192, PayloadOffset = 256, StatusOffset = 320, CommandOffset = 328;
+    private const int RequestOffset = 0, ReplyOffset = 64, ArenaAsleepOffset = 128, HostAsleepOffset = 192, PayloadOffset = 256, StatusOffset = 320, CommandOffset = 328, ShareCoresOffset = 384;
 
     private readonly MemoryMappedFile _file;
     private readonly MemoryMappedViewAccessor _view;
@@ -55,6 +57,16 @@ public sealed unsafe class SharedStepSlot : IDisposable
 
     private ref long At64(int offset) => ref *(long*)(_base + offset);
     private ref int At32(int offset) => ref *(int*)(_base + offset);
+
+    /// <summary>
+    /// Arena: whether both sides yield their core between looks (more spinning waiters than cores) or spin
+    /// without yielding; read by both sides on every wait.
+    /// </summary>
+    public bool ShareCores
+    {
+        get => Volatile.Read(ref At32(ShareCoresOffset)) != 0;
+        set => Volatile.Write(ref At32(ShareCoresOffset), value ? 1 : 0);
+    }
 
     /// <summary>Arena: publishes a measurement under <paramref name="sequence"/>; true if the host sleeps and needs a WAKE.</summary>
     public bool PublishRequest(long sequence, in TrackerMeasurement m)
@@ -121,9 +133,9 @@ public sealed unsafe class SharedStepSlot : IDisposable
             }
             if (Stopwatch.GetTimestamp() - start < _spinTicks)
             {
-                // Give the core away between looks: where the peer waits for a core (more busy threads than
-                // cores, as in a sweep), it gets this one instead of waiting for the scheduler's next tick.
-                Thread.Yield();
+                // Give the core away between looks where the peer may be waiting for one (more spinning threads
+                // than cores, as in a sweep): it gets this one instead of waiting for the scheduler's next tick.
+                if (Volatile.Read(ref At32(ShareCoresOffset)) != 0) Thread.Yield();
                 continue;
             }
             Volatile.Write(ref At32(ownAsleepOffset), 1);

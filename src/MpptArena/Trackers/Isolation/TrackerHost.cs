@@ -124,6 +124,16 @@ public sealed class TrackerHost : IDisposable
         return first;
     }
 
+    /// <summary>Whether both sides of the shared slot yield their core between looks (see <see cref="SharedStepSlot.ShareCores"/>); true by default.</summary>
+    public bool ShareCores
+    {
+        get => _slot?.ShareCores ?? true;
+        set
+        {
+            if (_slot is not null && _slot.ShareCores != value) _slot.ShareCores = value;
+        }
+    }
+
     /// <summary>One step: sends the measurement, returns the command.</summary>
     /// <param name="m">The measurement.</param>
     /// <param name="call">Number of this call in the run, for messages [-].</param>
@@ -218,6 +228,7 @@ public sealed class TrackerHost : IDisposable
         Directory.CreateDirectory(_slotFolder);
         string path = Path.Combine(_slotFolder, "slot");
         _slot = SharedStepSlot.Create(path);
+        _slot.ShareCores = true;
         Begin(TrackerLimits.StartS);
         Send(_builder.Begin(FrameType.Map).Text(path), "while mapping its slot");
         ReadFrame("while mapping its slot", FrameType.Mapped, _ => 0);
