@@ -18,6 +18,7 @@ internal static class Program
           new-tracker NAME         scaffold a C# tracker project (--out DIR)
           sweep SWEEP.yaml         run a parameter sweep (with --shard K/N for one part of it)
           merge SHARD_DIR...       join sweep shards into one result
+          help COMMAND             a command's options, defaults and an example (or COMMAND --help)
 
         results go to a new or empty --out folder; an earlier result of the arena is replaced only with
           --force, and a folder with anything else in it never is
@@ -36,12 +37,24 @@ internal static class Program
     /// <summary>Runs one command and turns every way it can end into an exit code and a message (never a stack trace).</summary>
     internal static int Dispatch(string[] args)
     {
-        if (args.Length == 0 || args[0] is "-h" or "--help" or "help")
+        if (args.Length == 0 || args[0] is "-h" or "--help" || (args[0] == "help" && args.Length == 1))
         {
             StandardOutput.Out.WriteLine(Help);
             return args.Length == 0 ? ExitCodes.BadInput : ExitCodes.Ok;
         }
         string[] rest = args[1..];
+        // "mppt-arena help run" and "mppt-arena run --help" print the command's own help.
+        string? helpFor = args[0] == "help" ? args[1] : rest.Any(r => r is "--help" or "-h") ? args[0] : null;
+        if (helpFor is not null)
+        {
+            if (CommandHelp.For(helpFor) is not { } help)
+            {
+                StandardOutput.Error.WriteLine($"error: unknown command '{helpFor}'; run 'mppt-arena help' for the list");
+                return ExitCodes.BadInput;
+            }
+            StandardOutput.Out.Write(help.Render());
+            return ExitCodes.Ok;
+        }
         try
         {
             return args[0] switch
