@@ -116,10 +116,8 @@ internal static class RunCommand
     private static RunResult Simulate(Scenario scenario, Func<TrackerSpec, ISeriesSink?> sinks, Func<TrackerSpec, TextWriter?> logs, bool quiet, CancellationToken cancel)
     {
         var runner = new ScenarioRunner();
-        if (quiet || !ConsoleMode.Interactive)
-        {
-            return runner.Run(scenario, sinks, cancel: cancel, logFor: logs);
-        }
+        if (quiet) return runner.Run(scenario, sinks, cancel: cancel, logFor: logs);
+        if (!ConsoleMode.Interactive) return runner.Run(scenario, sinks, new ProgressLines(scenario.Name), cancel, logs);
         RunResult? result = null;
         AnsiConsole.Progress()
             .Columns(new TaskDescriptionColumn(), new ProgressBarColumn(), new PercentageColumn(), new RemainingTimeColumn())

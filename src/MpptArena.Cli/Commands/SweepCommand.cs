@@ -127,7 +127,13 @@ internal static class SweepCommand
         if (todo.Count == 0) return;
         if (quiet || !ConsoleMode.Interactive)
         {
-            SweepExecutor.RunAll(sweep, todo, threads, (c, r) => SweepStore.Write(output, SweepStore.ToResult(c, r)), cancel);
+            var lines = quiet ? null : new ProgressLines($"{todo.Count} cases");
+            int finished = 0;
+            SweepExecutor.RunAll(sweep, todo, threads, (c, r) =>
+            {
+                SweepStore.Write(output, SweepStore.ToResult(c, r));
+                lines?.Report((double)Interlocked.Increment(ref finished) / todo.Count);
+            }, cancel);
             return;
         }
         AnsiConsole.Progress()
