@@ -22,7 +22,7 @@ public class CliTests
         Assert.Matches(@"bad\.yaml:\d+:\d+: .*inductance_mh.*greater than zero", err);
         Assert.DoesNotContain("   at ", err); // no stack trace
         Assert.False(Directory.Exists(Path.Combine(dir, "out")));
-        Assert.False(Directory.Exists(Path.Combine(dir, "out.partial")));
+        Assert.Empty(Directory.GetDirectories(dir, ".out.staging-*")); // no half-written result left beside it
     }
 
     [Fact]

@@ -23,7 +23,7 @@ public class IsolationCliTests
         Assert.True(fw.GetProperty("failed").GetBoolean());
         Assert.Equal(8, fw.GetProperty("failure_recent_calls").GetArrayLength());
         Assert.Contains("about to crash", File.ReadAllText(Path.Combine(dir, "out", "logs", "fw.log")));
-        Assert.False(Directory.Exists(Path.Combine(dir, "out.partial")));
+        Assert.Empty(Directory.GetDirectories(dir, ".out.staging-*")); // no half-written result left beside it
     }
 
     [Fact]
@@ -54,7 +54,7 @@ public class IsolationCliTests
         Assert.Contains("made no reply within 0.3 s", stderr);
         Assert.True(watch.Elapsed.TotalSeconds < 60);
         Assert.False(Directory.Exists(Path.Combine(dir, "out")));
-        Assert.False(Directory.Exists(Path.Combine(dir, "out.partial")));
+        Assert.Empty(Directory.GetDirectories(dir, ".out.staging-*")); // no half-written result left beside it
     }
 
     [Fact]
@@ -68,13 +68,16 @@ public class IsolationCliTests
         using var p = Process.Start(psi)!;
         var stderr = p.StandardError.ReadToEndAsync();
         var deadline = Stopwatch.StartNew();
-        while (!Directory.Exists(Path.Combine(dir, "out.partial")) && deadline.Elapsed.TotalSeconds < 60) Thread.Sleep(50);
+        // The run writes into a hidden staging folder beside its target until it is complete.
+        bool Staging() => Directory.GetDirectories(dir, ".out.staging-*").Length > 0;
+        while (!Staging() && deadline.Elapsed.TotalSeconds < 60) Thread.Sleep(50);
+        Assert.True(Staging(), "the run made no staging folder");
         Thread.Sleep(300);
         Assert.Equal(0, CCompiler.Run("kill", "-INT", p.Id.ToString()).Exit);
         Assert.True(p.WaitForExit(30_000), "the run did not stop after SIGINT");
         Assert.Equal(130, p.ExitCode);
         Assert.Contains("interrupted by SIGINT", await stderr);
         Assert.False(Directory.Exists(Path.Combine(dir, "out")));
-        Assert.False(Directory.Exists(Path.Combine(dir, "out.partial")));
+        Assert.False(Staging(), "the staging folder was left behind");
     }
 }
