@@ -15,6 +15,8 @@ internal static class Program
           compare BASELINE CURRENT compare two summaries (files or results folders); exit 1 on regression
           trackers                 list tracker kinds and their parameters
           validate FILE.yaml...    check scenario, plant and sweep files without running them
+          explain SCENARIO.yaml    the scenario as it will run: every default, the fitted module, the array
+                                   at STC, the converter's PV-voltage window, sensor LSBs, the plant step
           new-tracker NAME         scaffold a C# tracker project (--out DIR)
           sweep SWEEP.yaml         run a parameter sweep (with --shard K/N for one part of it)
           merge SHARD_DIR...       join sweep shards into one result
@@ -64,6 +66,7 @@ internal static class Program
                 "compare" => CompareCommand.Execute(rest),
                 "trackers" => TrackersCommand.Execute(rest),
                 "validate" => ValidateCommand.Execute(rest),
+                "explain" => ExplainCommand.Execute(rest),
                 "new-tracker" => NewTrackerCommand.Execute(rest),
                 "sweep" => SweepCommand.Execute(rest),
                 "merge" => MergeCommand.Execute(rest),

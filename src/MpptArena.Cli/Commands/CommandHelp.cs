@@ -54,6 +54,8 @@ internal sealed record CommandHelp(string Name, string Arguments, string Summary
         [("--plugin DLL", "also list the kinds of a .NET assembly (repeatable)")], "./run.sh trackers"),
         new("validate", "FILE.yaml...", "Checks scenario, plant and sweep files without running them: everything run and sweep would refuse, with its file, line and column.",
         [("--plugin DLL", "tracker kinds of a .NET assembly the files may name (repeatable)")], "./run.sh validate scenarios/*.yaml"),
+        new("explain", "SCENARIO.yaml", "Prints the scenario as the arena will run it, every default filled in, with the plant's derived numbers: the fitted single-diode parameters and ideality factor, the module and array at STC, the converter's reachable PV-voltage window, sensor LSBs, the plant step and where it came from.",
+        [("--plugin DLL", "tracker kinds of a .NET assembly the scenario may name (repeatable)")], "./run.sh explain scenarios/demo-moving-shadow.yaml"),
         new("new-tracker", "NAME", "Scaffolds a C# tracker project (tracker, xunit test, scenario) that builds and scores out of the box.",
         [("--out DIR", "project folder, new or empty (default: NAME)")], "./run.sh new-tracker my-tracker --out ../my-tracker"),
         new("sweep", "SWEEP.yaml", "Runs a parameter sweep (or one shard of it) in parallel and resumably, or tunes with Nelder-Mead (--tune); writes cases, best settings, heat maps and Pareto plots.",
