@@ -49,7 +49,7 @@ internal static class CurveCommand
                 k == peaks.GlobalIndex ? "[bold]global[/]" : "local");
         }
         AnsiConsole.Write(table);
-        StandardOutput.Out.WriteLine($"results: {Path.GetRelativePath(Directory.GetCurrentDirectory(), stage.Commit())}");
+        StandardOutput.Out.WriteLine($"results: {ShownPath.Of(stage.Commit())}");
         return ExitCodes.Ok;
     }
 

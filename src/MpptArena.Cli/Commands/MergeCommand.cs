@@ -49,7 +49,7 @@ internal static class MergeCommand
         SweepStore.WriteManifest(output, first with { Shard = 1, ShardCount = 1, ShardCases = first.TotalCases });
         SweepReport.Write(output, cases.Values, first.Objective, first.HeatmapX, first.HeatmapY, !a.Flag("--no-plots"));
         StandardOutput.Out.WriteLine($"{first.Name}: merged {cases.Count} cases from {manifests.Count} shard folder(s)");
-        StandardOutput.Out.WriteLine($"results: {Path.GetRelativePath(Directory.GetCurrentDirectory(), stage.Commit([SweepStore.CasesFolderName]))}");
+        StandardOutput.Out.WriteLine($"results: {ShownPath.Of(stage.Commit([SweepStore.CasesFolderName]))}");
         return ExitCodes.Ok;
     }
 }

@@ -70,7 +70,7 @@ internal static class RunCommand
         {
             Trackers.Isolation.HostWatchdog.InProcessCallOverrun -= OnOverrun;
         }
-        string finalDir = Path.GetRelativePath(Directory.GetCurrentDirectory(), stage.Commit(["logs"]));
+        string finalDir = ShownPath.Of(stage.Commit(["logs"]));
 
         if (!a.Flag("--quiet")) RankingTable.Print(summary);
         var cases = gates.Check(summary);

@@ -207,7 +207,7 @@ internal static class SweepCommand
         md.Append(CultureInfo.InvariantCulture, $"\nBest {tune.Score}: {bestScore:G6}\n");
         File.WriteAllText(Path.Combine(output, "tune.md"), md.ToString());
         StandardOutput.Out.Write(md.ToString());
-        StandardOutput.Out.WriteLine($"results: {Path.GetRelativePath(Directory.GetCurrentDirectory(), stage.Commit())}");
+        StandardOutput.Out.WriteLine($"results: {ShownPath.Of(stage.Commit())}");
         return ExitCodes.Ok;
     }
 }

@@ -65,9 +65,9 @@ public static class ScenarioLoader
     private static string ReadName(YamlMap root)
     {
         string name = root.Text("name");
-        if (name.Length == 0 || name.Length > TrackerEntryReader.MaxNameLength || name.Any(c => !(char.IsAsciiLetterOrDigit(c) || c is '-' or '_')))
+        if (!FileSafeName.IsValid(name, dots: false))
         {
-            throw root.Error(root.Node("name")!, $"'name' = '{(name.Length > 80 ? name[..80] + "..." : name)}' must be 1 to {TrackerEntryReader.MaxNameLength} letters, digits, '-' and '_' (it names the results folder)", "name");
+            throw root.Error(root.Node("name")!, $"'name' = '{FileSafeName.Shown(name)}' must be 1 to {FileSafeName.MaxLength} letters, digits, '-' and '_' (it names the results folder)", "name");
         }
         return name;
     }
@@ -374,9 +374,9 @@ public static class ScenarioLoader
             {
                 var w = new YamlMap(item, s.File, $"{s.Path}.windows[{k++}]", ["name", "start_s", "end_s"]);
                 string name = w.Text("name");
-                if (name.Length == 0 || name.Length > TrackerEntryReader.MaxNameLength || name.Any(c => !(char.IsAsciiLetterOrDigit(c) || c is '-' or '_' or '.')))
+                if (!FileSafeName.IsValid(name, dots: true, leadingDot: true))
                 {
-                    throw w.Error(w.Node("name")!, $"window name '{(name.Length > 80 ? name[..80] + "..." : name)}' must be 1 to {TrackerEntryReader.MaxNameLength} letters, digits, '-', '_' or '.' (it names the score window:NAME)", "name");
+                    throw w.Error(w.Node("name")!, $"window name '{FileSafeName.Shown(name)}' must be 1 to {FileSafeName.MaxLength} letters, digits, '-', '_' or '.' (it names the score window:NAME)", "name");
                 }
                 if (windows.Any(x => x.Name == name || x.Group == name)) throw w.Error(w.Node("name")!, $"window name '{name}' is used twice", "name");
                 double start = w.Number("start_s", null, 0, ProfileReader.MaxSegmentS), end = w.Number("end_s", null, 0, ProfileReader.MaxSegmentS);

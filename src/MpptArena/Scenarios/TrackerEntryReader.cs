@@ -60,17 +60,14 @@ internal static class TrackerEntryReader
         return ContentDigest.OfParts(parts);
     }
 
-    /// <summary>Longest tracker or scenario name: it becomes part of file names.</summary>
-    public const int MaxNameLength = 64;
-
-    /// <summary>A tracker's name (default: its type): letters, digits, '-', '_' and '.', not starting with '.', at most <see cref="MaxNameLength"/> characters, since it names files (series-NAME.csv, logs/NAME.log).</summary>
+    /// <summary>A tracker's name (default: its type): letters, digits, '-', '_' and '.', not starting with '.', at most <see cref="FileSafeName.MaxLength"/> characters, since it names files (series-NAME.csv, logs/NAME.log).</summary>
     public static string ReadName(YamlMap t, string kind)
     {
         string name = t.Text("name", kind);
         var node = t.Node("name") ?? t.Node("type")!;
-        if (name.Length == 0 || name.Length > MaxNameLength || name[0] == '.' || name.Any(c => !(char.IsAsciiLetterOrDigit(c) || c is '-' or '_' or '.')))
+        if (!FileSafeName.IsValid(name, dots: true))
         {
-            throw t.Error(node, $"tracker name '{(name.Length > 80 ? name[..80] + "..." : name)}' must be 1 to {MaxNameLength} letters, digits, '-', '_' or '.', not starting with '.' (it names the tracker's files in the results folder)", "name");
+            throw t.Error(node, $"tracker name '{FileSafeName.Shown(name)}' must be 1 to {FileSafeName.MaxLength} letters, digits, '-', '_' or '.', not starting with '.' (it names the tracker's files in the results folder)", "name");
         }
         return name;
     }

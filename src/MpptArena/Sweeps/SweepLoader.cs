@@ -28,9 +28,9 @@ public static class SweepLoader
         var rootNode = YamlInput.ReadRoot(YamlInput.ReadText(path, "sweep file"), path, "a sweep mapping");
         var root = new YamlMap(rootNode, path, "sweep", TopKeys);
         string name = root.Text("name");
-        if (name.Length == 0 || name.Length > TrackerEntryReader.MaxNameLength || name.Any(c => !(char.IsAsciiLetterOrDigit(c) || c is '-' or '_')))
+        if (!FileSafeName.IsValid(name, dots: false))
         {
-            throw root.Error(root.Node("name")!, $"'name' = '{(name.Length > 80 ? name[..80] + "..." : name)}' must be 1 to {TrackerEntryReader.MaxNameLength} letters, digits, '-' and '_' (it names the results folder)", "name");
+            throw root.Error(root.Node("name")!, $"'name' = '{FileSafeName.Shown(name)}' must be 1 to {FileSafeName.MaxLength} letters, digits, '-' and '_' (it names the results folder)", "name");
         }
         if (root.Sequence("plugins") is { } plugins)
         {

@@ -259,15 +259,21 @@ public class ArrayTests
             p[i] = v * current;
         }
         double pmax = p.Max();
-        var reference = new List<(double V, double Prominence)>();
-        for (int i = 1; i < n; i++)
+        // Local maxima of sampled powers with their topographic prominence.
+        List<(double V, double Prominence)> Maxima(double[] power)
         {
-            if (!(p[i] > p[i - 1] && p[i] >= p[i + 1])) continue;
-            double left = p[i], right = p[i];
-            for (int j = i - 1; j >= 0 && p[j] <= p[i]; j--) left = Math.Min(left, p[j]);
-            for (int j = i + 1; j <= n && p[j] <= p[i]; j++) right = Math.Min(right, p[j]);
-            reference.Add((voc * i / n, p[i] - Math.Max(left, right)));
+            var list = new List<(double V, double Prominence)>();
+            for (int i = 1; i < n; i++)
+            {
+                if (!(power[i] > power[i - 1] && power[i] >= power[i + 1])) continue;
+                double left = power[i], right = power[i];
+                for (int j = i - 1; j >= 0 && power[j] <= power[i]; j--) left = Math.Min(left, power[j]);
+                for (int j = i + 1; j <= n && power[j] <= power[i]; j++) right = Math.Min(right, power[j]);
+                list.Add((voc * i / n, power[i] - Math.Max(left, right)));
+            }
+            return list;
         }
+        var reference = Maxima(p);
         var clear = reference.Where(r => r.Prominence >= 2 * MppSearch.MinProminenceShare * pmax).ToList();
         Assert.True(clear.Count >= 5, $"the state has only {clear.Count} clear maxima");
         foreach (var r in clear)
@@ -284,15 +290,9 @@ public class ArrayTests
         // prominence of at least the stated 1e-4 of Pmpp (plus 5 % for the sampling) is reported.
         var own = new double[n + 1];
         for (int i = 0; i <= n; i++) own[i] = voc * i / n * prepared.CurrentAtVoltage(voc * i / n);
-        for (int i = 1; i < n; i++)
+        foreach (var (v, prominence) in Maxima(own).Where(m => m.Prominence >= 1.05 * MppSearch.MinProminenceShare * pmax))
         {
-            if (!(own[i] > own[i - 1] && own[i] >= own[i + 1])) continue;
-            double left = own[i], right = own[i];
-            for (int j = i - 1; j >= 0 && own[j] <= own[i]; j--) left = Math.Min(left, own[j]);
-            for (int j = i + 1; j <= n && own[j] <= own[i]; j++) right = Math.Min(right, own[j]);
-            double prominence = own[i] - Math.Max(left, right);
-            if (prominence < 1.05 * MppSearch.MinProminenceShare * pmax) continue;
-            Assert.True(found.Peaks.Any(f => Math.Abs(f.VoltageV - voc * i / n) < 0.01), $"prepared-curve maximum at {voc * i / n:F3} V (prominence {prominence / pmax:E1} of Pmpp) not reported");
+            Assert.True(found.Peaks.Any(f => Math.Abs(f.VoltageV - v) < 0.01), $"prepared-curve maximum at {v:F3} V (prominence {prominence / pmax:E1} of Pmpp) not reported");
         }
     }
 
