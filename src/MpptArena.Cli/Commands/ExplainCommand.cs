@@ -80,6 +80,14 @@ internal static class ExplainCommand
             Line(1, $"duty: {{ min: {N(k.MinDuty)}, max: {N(k.MaxDuty)} }}");
             Line(1, $"voltage_loop: {{ bandwidth_hz: {N(k.VoltageLoopBandwidthHz)}, integral_hz: {N(k.VoltageLoopIntegralHz)}, rate_hz: {N(k.VoltageLoopRateHz)} }}");
             Line(1, $"current_loop_bandwidth_hz: {N(k.CurrentLoopBandwidthHz)}");
+            Line(1, $"switching_frequency_khz: {N(k.SwitchingFrequencyHz * 1e-3)}");
+            // CCM/DCM boundary where the average inductor current is half its ripple, at the STC MPP voltage
+            // and the CCM steady duty (Erickson, Maksimovic 2001, ch. 5); the array current scales with irradiance.
+            double vmp = peaks.Global.VoltageV, ts = 1 / k.SwitchingFrequencyHz;
+            double boundaryInputA = k.Kind == FrontEndKind.Boost
+                ? vmp * (1 - vmp / k.BusVoltageV) * ts / (2 * k.InductanceH)
+                : (vmp - k.BatteryVoltageV) * (k.BatteryVoltageV / vmp) * ts / (2 * k.InductanceH) * (k.BatteryVoltageV / vmp);
+            Line(1, $"discontinuous_below: {{ input_current_a: {N(Math.Max(boundaryInputA, 0))}, irradiance_w_m2: {N(Math.Max(boundaryInputA, 0) / peaks.Global.CurrentA * 1000)} }}   # at the STC MPP voltage");
             // Steady state of the ideal converter: boost V_pv = (1 - D) V_bus, buck V_pv = V_batt / D (Erickson, Maksimovic 2001, ch. 2).
             var (low, high) = k.Kind == FrontEndKind.Boost
                 ? ((1 - k.MaxDuty) * k.BusVoltageV, (1 - k.MinDuty) * k.BusVoltageV)

@@ -13,18 +13,32 @@ namespace MpptArena.Plant;
 /// </summary>
 /// <remarks>
 /// Averaged CCM models after R. W. Erickson, D. Maksimovic, Fundamentals of Power Electronics, 2nd ed.,
-/// Kluwer 2001, ch. 2 and 7. The inductor current is not allowed below zero (the diode blocks): the
-/// model then stays at i = 0 instead of entering the discontinuous mode's averaged equations.
+/// Kluwer 2001, ch. 2 and 7, extended to discontinuous conduction by the full-order averaged model of
+/// J. Sun, D. M. Mitchell, M. F. Greuel, P. T. Krein, R. M. Bass, "Averaged modeling of PWM converters
+/// operating in discontinuous conduction mode", IEEE Trans. Power Electronics 16(4), 2001, 482-492: with
+/// the switch on for d1 Ts (inductor voltage V_on) and the diode conducting for d2 Ts (inductor voltage
+/// -V_off), the average inductor current i fixes d2 = 2 L i / (d1 Ts V_on) - d1 (eq. 17), capped at
+/// 1 - d1 where the current no longer reaches zero (continuous conduction), so the model is continuous
+/// across the boundary and equals the CCM model above it. The averaged state equations are then
+/// L di/dt = d1 V_on - d2 V_off - R_L i, with the switch and diode currents i d1/(d1 + d2) and
+/// i d2/(d1 + d2) (the triangle's shares). In DCM the inductor current has a fast real pole near
+/// 2 V_off / (d1 Ts V_on), above the switching frequency; the integrator treats that part exactly
+/// (<see cref="RungeKuttaStep"/>), so DCM costs no more steps than CCM. The current stays at zero only
+/// where nothing drives it (no switching, or no forward voltage).
 /// Voltage-reference control is cascaded as in average-current-mode firmware: an outer proportional
 /// voltage loop with feed-forward of the PV current sets the converter input current
 /// (i_in,ref = i_pv + Kv (v - v_ref)); an inner proportional current loop with duty feed-forward sets
-/// the duty cycle. With exact feed-forward both loops are first order: the PV voltage follows a
-/// reference step with tau_v = C/Kv and the inductor current its reference with tau_i = L/Kc, so the
-/// averaged model needs no integrator; an optional PI zero at f_z adds Ki = Kv 2 pi f_z (with
+/// the duty cycle. The duty feed-forward is the CCM relation, as firmware computes it; in continuous
+/// conduction and away from the modulator's limits both loops are then first order (the PV voltage
+/// follows a reference step with tau_v = C/Kv, the inductor current its reference with tau_i = L/Kc), so
+/// the averaged model needs no integrator. In DCM the same duty gives a different current, so the loops
+/// settle more slowly and with a steady error, as the real converter's do; a step towards open circuit
+/// that asks for less than zero current is slew-limited to i_pv/C; an optional PI zero at f_z adds Ki = Kv 2 pi f_z (with
 /// anti-windup) for users who want to see its effect. Gains follow from the requested bandwidths:
 /// Kv = 2 pi f_v C, Kc = 2 pi f_i L. By default the loops act continuously, as analog or fast digital
 /// loops do, so the model does not depend on the plant step; with a loop rate they update the duty
-/// cycle at that rate and hold it in between (zero-order hold). They see true values (their analog
+/// cycle at that rate and hold it in between (zero-order hold, at the loop's own instants whatever the
+/// plant step). They see true values (their analog
 /// sensing is much faster than the tracker's ADC path).
 /// </remarks>
 public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
@@ -32,7 +46,7 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
     /// <summary>Converter parameters.</summary>
     protected ConverterSettings Settings { get; } = settings;
 
-    private double _v, _i, _duty, _integral, _sinceUpdateS;
+    private double _v, _i, _duty, _integral, _untilUpdateS, _discontinuousS;
     private double _maxStableStepS = double.PositiveInfinity;
     private PreparedArrayCurve? _lastCurve;
     private EnergyLedger _energy;
@@ -57,9 +71,17 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
         _i = 0;
         _duty = Settings.MinDuty;
         _integral = 0;
-        _sinceUpdateS = double.PositiveInfinity;
+        _untilUpdateS = 0;
+        _discontinuousS = 0;
         _energy = default;
         _lastCurve = null;
+    }
+
+    /// <summary>Sets the state to an operating point: the input capacitor at <paramref name="voltageV"/> [V], the inductor at <paramref name="inductorCurrentA"/> [A].</summary>
+    public void Reset(double voltageV, double inductorCurrentA)
+    {
+        Reset(voltageV);
+        _i = Math.Max(inductorCurrentA, 0.0);
     }
 
     /// <inheritdoc/>
@@ -74,6 +96,15 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
     /// <inheritdoc/>
     public double DutyCycle => _duty;
 
+    /// <summary>Switching period Ts [s].</summary>
+    protected double SwitchingPeriodS => 1.0 / Settings.SwitchingFrequencyHz;
+
+    /// <summary>True when the inductor current falls to zero within each switching period at the present state and duty.</summary>
+    public bool IsDiscontinuous => _i <= 0 || !OffInterval(_duty, _i, _v, out _);
+
+    /// <summary>Time since reset spent in discontinuous conduction [s] (judged at the end of each step).</summary>
+    public double DiscontinuousTimeS => _discontinuousS;
+
     /// <inheritdoc/>
     public EnergyLedger Energy => _energy;
 
@@ -86,9 +117,12 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
         double rc = maxConductanceS / Settings.InputCapacitanceF;
         double lc = 1.0 / Math.Sqrt(Settings.InductanceH * Settings.InputCapacitanceF);
         double voltageLoop = (Kv + maxConductanceS) / Settings.InputCapacitanceF;
-        double currentLoop = (Kc + Settings.InductorResistanceOhm) / Settings.InductanceH;
+        double currentLoop = (Kc + LoopResistanceOhm) / Settings.InductanceH;
         return Math.Max(Math.Max(rc, lc), Math.Max(voltageLoop, currentLoop));
     }
+
+    /// <summary>Resistance in the inductor's loop [ohm]: R_L, and the battery's R_b for the buck.</summary>
+    protected virtual double LoopResistanceOhm => Settings.InductorResistanceOhm;
 
     /// <inheritdoc/>
     public void SetStabilityBound(double maxConductanceS, double stabilityLimit)
@@ -104,27 +138,55 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
     /// </summary>
     protected virtual bool InductorCarriesInputCurrent => false;
 
-    private double LoopPeriodS(double dtS) =>
-        Settings.VoltageLoopRateHz > 0 ? 1.0 / Settings.VoltageLoopRateHz - 0.5 * dtS : 0.0;
-
     /// <inheritdoc/>
     /// <remarks>
     /// With continuous loops on a topology whose closed loop is linear apart from the array's incremental
-    /// conductance (<see cref="InductorCarriesInputCurrent"/>), the whole step is one exponential
-    /// propagation (<see cref="TryClosedLoopStep"/>), stable and exact for any step while the conductance
-    /// holds. Otherwise (duty-cycle commands, digital or integrating loops, a saturated modulator, a blocking
-    /// diode) classical RK4 runs in equal sub-steps no longer than the stability bound.
+    /// conductance (<see cref="InductorCarriesInputCurrent"/>), a step in continuous conduction is one
+    /// exponential propagation (<see cref="TryClosedLoopStep"/>), stable and exact for any step while the
+    /// conductance holds. Otherwise (duty-cycle commands, digital or integrating loops, a saturated
+    /// modulator, discontinuous conduction, a blocking diode) the step is integrated in equal sub-steps no
+    /// longer than the stability bound (<see cref="RungeKuttaStep"/>); digital loops end sub-steps at their
+    /// own update instants.
     /// </remarks>
     public void Step(double dtS, PreparedArrayCurve curve, double command, TrackerCommandKind kind)
     {
-        if (kind == TrackerCommandKind.VoltageReference && Settings.VoltageLoopRateHz <= 0 && Ki == 0
+        Advance(dtS, curve, command, kind);
+        if (IsDiscontinuous) _discontinuousS += dtS;
+    }
+
+    private void Advance(double dtS, PreparedArrayCurve curve, double command, TrackerCommandKind kind)
+    {
+        bool digital = kind == TrackerCommandKind.VoltageReference && Settings.VoltageLoopRateHz > 0;
+        if (kind == TrackerCommandKind.VoltageReference && !digital && Ki == 0
             && InductorCarriesInputCurrent && TryClosedLoopStep(dtS, curve, command))
         {
             return;
         }
         int substeps = dtS <= _maxStableStepS ? 1 : (int)Math.Ceiling(dtS / _maxStableStepS);
         double h = dtS / substeps;
-        for (int k = 0; k < substeps; k++) RungeKuttaStep(h, curve, command, kind);
+        if (!digital)
+        {
+            for (int k = 0; k < substeps; k++) RungeKuttaStep(h, curve, command, kind);
+            return;
+        }
+        // Digital loops: the duty cycle is updated every loop period, at the loop's own instants (which
+        // need not fall on plant steps), and held in between; sub-steps end at those instants.
+        double loopPeriodS = 1.0 / Settings.VoltageLoopRateHz;
+        double tolS = 1e-9 * Math.Min(dtS, loopPeriodS);
+        double leftS = dtS;
+        while (leftS > tolS)
+        {
+            if (_untilUpdateS <= tolS)
+            {
+                UpdateDigitalLoop(curve, command, loopPeriodS);
+                _untilUpdateS += loopPeriodS;
+            }
+            double segment = Math.Min(leftS, Math.Min(_untilUpdateS, h));
+            if (leftS - segment <= tolS) segment = leftS;
+            RungeKuttaStep(segment, curve, command, kind);
+            leftS -= segment;
+            _untilUpdateS -= segment;
+        }
     }
 
     /// <summary>
@@ -135,8 +197,9 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
     /// (predicted with g at its start), so the step is the exponential midpoint rule (second order, exact
     /// for a straight characteristic; M. Hochbruck, A. Ostermann, "Exponential integrators", Acta Numerica
     /// 19, 2010, 209-286). The energy ledger is integrated by Simpson's rule over start, midpoint and end.
-    /// Returns false, leaving the state untouched, when the modulator would saturate or the inductor
-    /// current would reverse anywhere on those three points; the caller then integrates the step by RK4.
+    /// Returns false, leaving the state untouched, when the modulator would saturate or the conduction be
+    /// discontinuous anywhere on those three points (the feed-forward is exact only in CCM); the caller
+    /// then integrates the step by sub-steps.
     /// </summary>
     private bool TryClosedLoopStep(double h, PreparedArrayCurve curve, double vRef)
     {
@@ -170,7 +233,6 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
         _i = i1;
         _duty = DutyForInputCurrent(v1, i1, ipv1 + kv * u1);
         _lastCurve = curve;
-        _sinceUpdateS = double.PositiveInfinity;
         return true;
     }
 
@@ -181,14 +243,43 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
         return MatrixExponential2.Of(-kv / c, -1.0 / c, sigma * kv, sigma - lambda, t);
     }
 
-    /// <summary>True when the loops at this point neither saturate the modulator nor reverse the inductor current; gives the output power [W].</summary>
+    /// <summary>
+    /// True when the loops at this point neither saturate the modulator nor leave continuous conduction
+    /// (so the closed loop is the linear one); gives the output power [W].
+    /// </summary>
     private bool InLinearRange(double v, double i, double inputCurrentRefA, out double pOut)
     {
         double d = DutyForInputCurrent(v, i, inputCurrentRefA);
-        StateDerivatives(v, Math.Max(i, 0.0), d, 0.0, out _, out _, out pOut);
-        return i >= 0 && d >= Settings.MinDuty && d <= Settings.MaxDuty;
+        StateDerivatives(v, Math.Max(i, 0.0), d, 0.0, out _, out _, out pOut, out _);
+        return i > 0 && d >= Settings.MinDuty && d <= Settings.MaxDuty && OffInterval(d, i, v, out _);
     }
 
+    /// <summary>
+    /// Anti-windup rule shared by the continuous and digital integrators: the loop is saturated when the
+    /// modulator clamps the duty cycle or when it asks for a negative input current (the diode blocks it).
+    /// </summary>
+    private static bool Saturated(double duty, double clamped, double inputCurrentRefA) => clamped != duty || inputCurrentRefA < 0;
+
+    private void UpdateDigitalLoop(PreparedArrayCurve curve, double command, double loopPeriodS)
+    {
+        double error = _v - command;
+        double iRef = curve.CurrentAtVoltage(_v) + Kv * error + Ki * _integral;
+        double duty = DutyForInputCurrent(_v, _i, iRef);
+        double clamped = Math.Clamp(duty, Settings.MinDuty, Settings.MaxDuty);
+        // Anti-windup: integrate only while the loop is not saturated, or when unwinding.
+        if (Ki > 0 && (!Saturated(duty, clamped, iRef) || Math.Sign(error) != Math.Sign(_integral))) _integral += error * loopPeriodS;
+        _duty = clamped;
+    }
+
+    /// <summary>
+    /// One sub-step of <paramref name="dtS"/> [s] of the averaged model with the energy ledger as extra
+    /// states. Classical fourth-order Runge-Kutta in general; where the sub-step starts or ends in
+    /// discontinuous conduction with the inductor's fast pole lambda beyond h lambda = 1, the inductor
+    /// current is integrated by the exponential time-differencing scheme ETDRK4 (S. M. Cox, P. C. Matthews,
+    /// "Exponential time differencing for stiff systems", J. Computational Physics 176, 2002, 430-455,
+    /// eqs. 26-29) with the linear part -lambda i exact, and the other states by the same stages (ETDRK4
+    /// is classical RK4 where the linear part is zero). The scheme keeps every fixed point of the model.
+    /// </summary>
     private void RungeKuttaStep(double dtS, PreparedArrayCurve curve, double command, TrackerCommandKind kind)
     {
         // Continuous (analog) loops: the duty cycle follows the state inside every stage of the step, so
@@ -199,41 +290,35 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
         {
             _duty = Math.Clamp(command, Settings.MinDuty, Settings.MaxDuty);
         }
-        else if (continuous)
+        else if (continuous && Ki > 0)
         {
-            if (Ki > 0)
-            {
-                double error = _v - command;
-                double duty = DutyForInputCurrent(_v, _i, curve.CurrentAtVoltage(_v) + Kv * error + Ki * _integral);
-                double clamped = Math.Clamp(duty, Settings.MinDuty, Settings.MaxDuty);
-                if (clamped == duty || Math.Sign(error) != Math.Sign(_integral)) _integral += error * dtS;
-            }
-        }
-        else if (_sinceUpdateS >= LoopPeriodS(dtS))
-        {
-            double ipv = curve.CurrentAtVoltage(_v);
             double error = _v - command;
-            double duty = DutyForInputCurrent(_v, _i, ipv + Kv * error + Ki * _integral);
+            double iRef = curve.CurrentAtVoltage(_v) + Kv * error + Ki * _integral;
+            double duty = DutyForInputCurrent(_v, _i, iRef);
             double clamped = Math.Clamp(duty, Settings.MinDuty, Settings.MaxDuty);
-            // Anti-windup: integrate only while the modulator is not saturated, or when unwinding.
-            double period = double.IsPositiveInfinity(_sinceUpdateS) ? dtS : _sinceUpdateS;
-            if (Ki > 0 && (clamped == duty || Math.Sign(error) != Math.Sign(_integral))) _integral += error * period;
-            _duty = clamped;
-            _sinceUpdateS = 0;
+            if (!Saturated(duty, clamped, iRef) || Math.Sign(error) != Math.Sign(_integral)) _integral += error * dtS;
         }
-        _sinceUpdateS += dtS;
 
-        // Classical RK4 on (v, i, E_pv, E_out, E_loss); d held (digital) or a function of the state (continuous).
         var law = new DutyLaw(continuous, _duty, command, Ki * _integral);
-        Derivatives(curve, _v, _i, law, out double k1v, out double k1i, out double p1, out double o1, out double l1);
-        Derivatives(curve, _v + 0.5 * dtS * k1v, _i + 0.5 * dtS * k1i, law, out double k2v, out double k2i, out double p2, out double o2, out double l2);
-        Derivatives(curve, _v + 0.5 * dtS * k2v, _i + 0.5 * dtS * k2i, law, out double k3v, out double k3i, out double p3, out double o3, out double l3);
-        Derivatives(curve, _v + dtS * k3v, _i + dtS * k3i, law, out double k4v, out double k4i, out double p4, out double o4, out double l4);
-        _v += dtS / 6 * (k1v + 2 * k2v + 2 * k3v + k4v);
-        _i += dtS / 6 * (k1i + 2 * k2i + 2 * k3i + k4i);
-        _energy.FromArrayJ += dtS / 6 * (p1 + 2 * p2 + 2 * p3 + p4);
-        _energy.DeliveredJ += dtS / 6 * (o1 + 2 * o2 + 2 * o3 + o4);
-        _energy.LossJ += dtS / 6 * (l1 + 2 * l2 + 2 * l3 + l4);
+        double v = _v, i = _i;
+        var k1 = Derivatives(curve, v, i, law);
+        double lambda = DiscontinuousPoleRate(k1.Duty, v, i);
+        SubstepEnd next;
+        if (lambda * dtS > 1)
+        {
+            next = ExponentialStages(curve, dtS, law, lambda, k1);
+        }
+        else
+        {
+            next = ClassicalStages(curve, dtS, law, k1, out double lambdaEnd);
+            // Entered deep DCM within the sub-step (its last stage): integrate it as one that starts there.
+            if (lambdaEnd * dtS > 1) next = ExponentialStages(curve, dtS, law, lambdaEnd, k1);
+        }
+        _v = next.V;
+        _i = next.I;
+        _energy.FromArrayJ += next.FromArrayJ;
+        _energy.DeliveredJ += next.DeliveredJ;
+        _energy.LossJ += next.LossJ;
         if (_i < 0)
         {
             // Diode blocks: the (tiny) inductor energy of the negative excursion is booked as loss.
@@ -243,6 +328,100 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
         if (continuous) _duty = DutyAt(law, _v, _i, curve.CurrentAtVoltage(_v));
     }
 
+    /// <summary>State and ledger increments at the end of a sub-step.</summary>
+    private readonly record struct SubstepEnd(double V, double I, double FromArrayJ, double DeliveredJ, double LossJ);
+
+    /// <summary>Classical RK4 from the first stage <paramref name="k1"/>; gives the fast pole's rate at the last stage's point.</summary>
+    private SubstepEnd ClassicalStages(PreparedArrayCurve curve, double h, in DutyLaw law, in Stage k1, out double lambdaEnd)
+    {
+        double v = _v, i = _i;
+        var k2 = Derivatives(curve, v + 0.5 * h * k1.Dv, i + 0.5 * h * k1.Di, law);
+        var k3 = Derivatives(curve, v + 0.5 * h * k2.Dv, i + 0.5 * h * k2.Di, law);
+        double v4 = v + h * k3.Dv, i4 = i + h * k3.Di;
+        var k4 = Derivatives(curve, v4, i4, law);
+        lambdaEnd = DiscontinuousPoleRate(k4.Duty, v4, Math.Max(i4, 0.0));
+        return Combine(h, v + h / 6 * (k1.Dv + 2 * k2.Dv + 2 * k3.Dv + k4.Dv), i + h / 6 * (k1.Di + 2 * k2.Di + 2 * k3.Di + k4.Di), k1, k2, k3, k4);
+    }
+
+    /// <summary>
+    /// ETDRK4 (Cox and Matthews 2002, eqs. 26-29) for di/dt = -lambda i + N with N = f_i + lambda i, and
+    /// the classical RK4 stages for the capacitor voltage and the ledger.
+    /// </summary>
+    private SubstepEnd ExponentialStages(PreparedArrayCurve curve, double h, in DutyLaw law, double lambda, in Stage k1)
+    {
+        double v = _v, i = _i;
+        double z = -lambda * h;
+        double eHalf = PortableMath.Exp(0.5 * z), eFull = eHalf * eHalf;
+        double q = (1 - eHalf) / lambda;
+        double z3 = z * z * z;
+        double w1 = h * (-4 - z + eFull * (4 - 3 * z + z * z)) / z3;
+        double w2 = h * (2 + z + eFull * (z - 2)) / z3;
+        double w3 = h * (-4 - 3 * z - z * z + eFull * (4 - z)) / z3;
+
+        double n1 = k1.Di + lambda * i;
+        double ia = i * eHalf + q * n1;
+        var k2 = Derivatives(curve, v + 0.5 * h * k1.Dv, ia, law);
+        double n2 = k2.Di + lambda * ia;
+        double ib = i * eHalf + q * n2;
+        var k3 = Derivatives(curve, v + 0.5 * h * k2.Dv, ib, law);
+        double n3 = k3.Di + lambda * ib;
+        double ic = ia * eHalf + q * (2 * n3 - n1);
+        var k4 = Derivatives(curve, v + h * k3.Dv, ic, law);
+        double n4 = k4.Di + lambda * ic;
+        return Combine(h, v + h / 6 * (k1.Dv + 2 * k2.Dv + 2 * k3.Dv + k4.Dv), i * eFull + w1 * n1 + 2 * w2 * (n2 + n3) + w3 * n4, k1, k2, k3, k4);
+    }
+
+    private static SubstepEnd Combine(double h, double v, double i, in Stage k1, in Stage k2, in Stage k3, in Stage k4) => new(v, i,
+        h / 6 * (k1.PvPowerW + 2 * k2.PvPowerW + 2 * k3.PvPowerW + k4.PvPowerW),
+        h / 6 * (k1.OutputPowerW + 2 * k2.OutputPowerW + 2 * k3.OutputPowerW + k4.OutputPowerW),
+        h / 6 * (k1.LossPowerW + 2 * k2.LossPowerW + 2 * k3.LossPowerW + k4.LossPowerW));
+
+    /// <summary>
+    /// Rate of the inductor current's fast pole in discontinuous conduction [1/s]:
+    /// lambda = 2 V_off / (d1 Ts V_on) + R_L / L, from d(d2)/di = 2 L / (d1 Ts V_on) in
+    /// L di/dt = d1 V_on - d2 V_off - R_L i (Sun et al. 2001); zero in continuous conduction.
+    /// </summary>
+    private double DiscontinuousPoleRate(double d1, double v, double i)
+    {
+        if (OffInterval(d1, i, v, out _)) return 0.0;
+        var (on, off) = IntervalVoltages(v, i);
+        return 2 * off / (d1 * SwitchingPeriodS * on) + Settings.InductorResistanceOhm / Settings.InductanceH;
+    }
+
+    /// <summary>
+    /// The diode's conduction interval d2 [-] for the switch's d1 at average inductor current
+    /// <paramref name="i"/> [A]: 2 L i / (d1 Ts V_on) - d1 (Sun et al. 2001, eq. 17), at least 0, and
+    /// 1 - d1 where that would exceed it. Returns true in continuous conduction (d2 = 1 - d1), including
+    /// where nothing switches or there is no forward voltage (the CCM equations then hold, with the
+    /// current held at zero by the caller).
+    /// </summary>
+    /// <param name="d1">Duty cycle [-].</param>
+    /// <param name="i">Average inductor current [A].</param>
+    /// <param name="v">Input-capacitor voltage [V].</param>
+    /// <param name="d2">The diode's interval [-].</param>
+    protected bool OffInterval(double d1, double i, double v, out double d2)
+    {
+        var (on, off) = IntervalVoltages(v, i);
+        if (d1 <= 0 || on <= 0 || off <= 0)
+        {
+            d2 = 1 - d1;
+            return true;
+        }
+        double x = 2 * Settings.InductanceH * i / (d1 * SwitchingPeriodS * on) - d1;
+        if (x >= 1 - d1)
+        {
+            d2 = 1 - d1;
+            return true;
+        }
+        d2 = Math.Max(x, 0.0);
+        return false;
+    }
+
+    /// <summary>Inductor voltage with the switch on, V_on, and minus its voltage with the diode on, V_off [V].</summary>
+    /// <param name="v">Input-capacitor voltage [V].</param>
+    /// <param name="i">Average inductor current [A].</param>
+    protected abstract (double OnV, double OffV) IntervalVoltages(double v, double i);
+
     /// <summary>How the duty cycle is found inside a step.</summary>
     private readonly record struct DutyLaw(bool Continuous, double HeldDuty, double ReferenceV, double IntegralA);
 
@@ -251,27 +430,32 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
             ? Math.Clamp(DutyForInputCurrent(v, i, ipv + Kv * (v - law.ReferenceV) + law.IntegralA), Settings.MinDuty, Settings.MaxDuty)
             : law.HeldDuty;
 
-    private void Derivatives(PreparedArrayCurve curve, double v, double i, in DutyLaw law,
-        out double dv, out double di, out double pPv, out double pOut, out double pLoss)
+    /// <summary>Time derivatives and powers at one point of a step, with the duty cycle there.</summary>
+    private readonly record struct Stage(double Dv, double Di, double PvPowerW, double OutputPowerW, double LossPowerW, double Duty);
+
+    private Stage Derivatives(PreparedArrayCurve curve, double v, double i, in DutyLaw law)
     {
         double ipv = curve.CurrentAtVoltage(v);
         double iPos = Math.Max(i, 0.0);
         double d = DutyAt(law, v, iPos, ipv);
-        StateDerivatives(v, iPos, d, ipv, out dv, out di, out pOut);
-        pPv = v * ipv;
-        pLoss = Settings.InductorResistanceOhm * iPos * iPos;
+        StateDerivatives(v, iPos, d, ipv, out double dv, out double di, out double pOut, out double pLoss);
+        return new Stage(dv, di, v * ipv, pOut, pLoss, d);
     }
 
-    /// <summary>Averaged state equations of the topology.</summary>
+    /// <summary>Averaged state equations of the topology, continuous and discontinuous conduction.</summary>
     /// <param name="v">Input-capacitor voltage [V].</param>
-    /// <param name="i">Inductor current [A], not negative.</param>
+    /// <param name="i">Average inductor current [A], not negative.</param>
     /// <param name="d">Duty cycle [-].</param>
     /// <param name="ipv">Array current at v [A].</param>
     /// <param name="dv">dv/dt [V/s].</param>
     /// <param name="di">di/dt [A/s].</param>
     /// <param name="pOut">Power delivered at the output [W].</param>
-    protected abstract void StateDerivatives(double v, double i, double d, double ipv, out double dv, out double di, out double pOut);
+    /// <param name="pLoss">Power lost in the inductor's resistance [W]: R_L i^2 / (d1 + d2), the loss the averaged equations imply (R_L i^2 in CCM).</param>
+    protected abstract void StateDerivatives(double v, double i, double d, double ipv, out double dv, out double di, out double pOut, out double pLoss);
 
-    /// <summary>Duty cycle that drives the converter's input current toward <paramref name="inputCurrentRefA"/> with the current loop's bandwidth.</summary>
+    /// <summary>
+    /// Duty cycle that drives the converter's input current toward <paramref name="inputCurrentRefA"/> with
+    /// the current loop's bandwidth, from the CCM relations (as firmware computes its feed-forward).
+    /// </summary>
     protected abstract double DutyForInputCurrent(double v, double i, double inputCurrentRefA);
 }

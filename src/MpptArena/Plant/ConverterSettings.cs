@@ -29,6 +29,7 @@ public enum FrontEndKind
 /// <param name="MaxVoltageReferenceV">Highest voltage reference accepted [V].</param>
 /// <param name="VoltageLoopIntegralHz">Zero of the voltage loop's PI controller [Hz]; 0 for proportional with feed-forward only.</param>
 /// <param name="VoltageLoopRateHz">Rate at which the inner loops update the duty cycle [Hz]; 0 for continuous loops.</param>
+/// <param name="SwitchingFrequencyHz">PWM switching frequency [Hz]; 0 takes the topology's typical value (<see cref="TypicalSwitchingFrequencyHz"/>).</param>
 public sealed record ConverterSettings(
     FrontEndKind Kind,
     double LagTimeConstantS = 2e-3,
@@ -44,4 +45,15 @@ public sealed record ConverterSettings(
     double CurrentLoopBandwidthHz = 1000,
     double MaxVoltageReferenceV = 1000,
     double VoltageLoopIntegralHz = 0,
-    double VoltageLoopRateHz = 0);
+    double VoltageLoopRateHz = 0,
+    double SwitchingFrequencyHz = 0)
+{
+    /// <summary>PWM switching frequency [Hz].</summary>
+    public double SwitchingFrequencyHz { get; init; } = SwitchingFrequencyHz > 0 ? SwitchingFrequencyHz : TypicalSwitchingFrequencyHz(Kind);
+
+    /// <summary>
+    /// Typical switching frequency of a topology [Hz] (common practice): 20 kHz for the boost stage of a
+    /// string inverter (IGBTs, just above hearing), 50 kHz for the buck of a MOSFET charge controller.
+    /// </summary>
+    public static double TypicalSwitchingFrequencyHz(FrontEndKind kind) => kind == FrontEndKind.Buck ? 50e3 : 20e3;
+}

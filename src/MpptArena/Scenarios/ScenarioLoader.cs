@@ -254,7 +254,7 @@ public static class ScenarioLoader
     [
         "type", "lag_time_constant_ms", "input_capacitance_uf", "inductance_mh", "inductor_resistance_ohm", "bus_voltage_v",
         "battery_voltage_v", "battery_resistance_ohm", "min_duty", "max_duty", "voltage_loop_bandwidth_hz", "current_loop_bandwidth_hz",
-        "max_voltage_reference_v", "voltage_loop_integral_hz", "voltage_loop_rate_hz",
+        "max_voltage_reference_v", "voltage_loop_integral_hz", "voltage_loop_rate_hz", "switching_frequency_khz",
     ];
 
     private static ConverterSettings ReadConverter(YamlMap c, SensorSettings sensors)
@@ -281,6 +281,7 @@ public static class ScenarioLoader
             MaxVoltageReferenceV = c.Positive("max_voltage_reference_v", sensors.Voltage.FullScale, MaxVoltageV),
             VoltageLoopIntegralHz = c.Number("voltage_loop_integral_hz", d.VoltageLoopIntegralHz, 0, 1e6),
             VoltageLoopRateHz = c.Number("voltage_loop_rate_hz", d.VoltageLoopRateHz, 0, 1e7),
+            SwitchingFrequencyHz = c.Positive("switching_frequency_khz", d.SwitchingFrequencyHz * 1e-3, 1e4) * 1e3,
         };
     }
 
