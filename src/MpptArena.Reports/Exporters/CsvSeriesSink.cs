@@ -3,11 +3,15 @@ using MpptArena.Runs;
 
 namespace MpptArena.Reports.Exporters;
 
-/// <summary>Streams a tracker's time series to CSV as the run goes; units in the header.</summary>
+/// <summary>
+/// Streams a tracker's time series to CSV as the run goes; units in the header. Each row holds interval
+/// means (the MPP voltage and the command at the interval's end); the converter columns are empty for
+/// the ideal source.
+/// </summary>
 public sealed class CsvSeriesSink : ISeriesSink
 {
     /// <summary>The header line.</summary>
-    public const string Header = "time_s,voltage_v,current_a,power_w,mpp_power_w,mpp_voltage_v,command";
+    public const string Header = "time_s,voltage_v,current_a,power_w,mpp_power_w,mpp_voltage_v,command,inductor_current_a,duty,dcm_share";
 
     private readonly StreamWriter _writer;
 
@@ -28,7 +32,16 @@ public sealed class CsvSeriesSink : ISeriesSink
         _writer.Write(r.PowerW.ToString("G7", c)); _writer.Write(',');
         _writer.Write(r.MppPowerW.ToString("G7", c)); _writer.Write(',');
         _writer.Write(r.MppVoltageV.ToString("G7", c)); _writer.Write(',');
-        _writer.WriteLine(r.Command.ToString("G7", c));
+        _writer.Write(r.Command.ToString("G7", c)); _writer.Write(',');
+        WriteOptional(r.InductorCurrentA); _writer.Write(',');
+        WriteOptional(r.DutyCycle); _writer.Write(',');
+        WriteOptional(r.DiscontinuousShare);
+        _writer.WriteLine();
+    }
+
+    private void WriteOptional(double value)
+    {
+        if (!double.IsNaN(value)) _writer.Write(value.ToString("G7", CultureInfo.InvariantCulture));
     }
 
     /// <inheritdoc/>
@@ -42,8 +55,8 @@ public sealed class CsvSeriesSink : ISeriesSink
         {
             var f = line.Split(',');
             if (f.Length < 7) continue;
-            double P(int k) => double.Parse(f[k], CultureInfo.InvariantCulture);
-            rows.Add(new SeriesRow(P(0), P(1), P(2), P(3), P(4), P(5), P(6)));
+            double P(int k) => k < f.Length && f[k].Length > 0 ? double.Parse(f[k], CultureInfo.InvariantCulture) : double.NaN;
+            rows.Add(new SeriesRow(P(0), P(1), P(2), P(3), P(4), P(5), P(6), P(7), P(8), P(9)));
         }
         return rows;
     }

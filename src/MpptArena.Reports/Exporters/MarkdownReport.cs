@@ -29,6 +29,13 @@ public static class MarkdownReport
             string F(string key, string format) => t.Scores.GetValueOrDefault(key) is { } v ? v.ToString(format, c) : "n/a";
             sb.Append(c, $"| {rank++} | {t.Name} | {t.Kind} | {F("tracking_efficiency", "0.0000")} | {F("static_efficiency", "0.0000")} | {F("energy_lost_wh", "0.0000")} | {F("startup_time_s", "0.000")} | {F("mean_settling_time_s", "0.000")} | {F("events_never_settled", "0")} | {F("ripple_voltage_pp_v", "0.00")} | {F("global_peak_time_share", "0.000")} |\n");
         }
+        var dcm = s.Trackers.Where(t => t.DiscontinuousConductionShare is not null).ToList();
+        if (dcm.Count > 0)
+        {
+            sb.Append("\nTime in discontinuous conduction: ");
+            sb.Append(string.Join(", ", dcm.Select(t => string.Create(c, $"{t.Name} {t.DiscontinuousConductionShare:0.0%}"))));
+            sb.Append(".\n");
+        }
         var windowNames = s.Trackers.SelectMany(t => t.Windows).Select(w => w.Name).Distinct().ToList();
         if (windowNames.Count > 0)
         {

@@ -81,6 +81,9 @@ public sealed record TrackerSummary
     /// <summary>Tracker calls made.</summary>
     public required long TrackerCalls { get; init; }
 
+    /// <summary>Share of the run the converter spent in discontinuous conduction [-]; null for the ideal source (and in summaries written before it was reported).</summary>
+    public double? DiscontinuousConductionShare { get; init; }
+
     /// <summary>Scores by key (see <see cref="ScoreCatalog"/>); empty if failed.</summary>
     public required SortedDictionary<string, double?> Scores { get; init; }
 

@@ -22,6 +22,8 @@ public static class SummaryBuilder
             FailureTimeS = t.Failure?.TimeS,
             FailureRecentCalls = t.Failure?.Recent.Select(r => new RecentCall(r.TimeS, r.VoltageV, r.CurrentA, double.IsFinite(r.Command) ? r.Command : null)).ToList(),
             TrackerCalls = t.TrackerCalls,
+            DiscontinuousConductionShare = t.DiscontinuousTimeS is { } dcm && run.DurationS > 0
+                ? Math.Min(1.0, dcm / (t.Failure is { } f ? Math.Max(f.TimeS, run.PlantStepS) : run.DurationS)) : null,
             Scores = t.Scores is null ? new SortedDictionary<string, double?>(StringComparer.Ordinal) : ScoreCatalog.ToDictionary(t.Scores),
             Settling = t.Scores?.Settling.Select(s => new SettlingEntry(s.EventS, s.Label, s.SettlingTimeS)).ToList() ?? [],
             Windows = t.Scores is null ? [] : t.Scores.Windows.Concat(t.Scores.Groups)

@@ -4,10 +4,12 @@ using MpptArena.Arrays;
 namespace MpptArena.Plant;
 
 /// <summary>
-/// Keeps the prepared array curve and its true MPP for the conditions in force. Conditions are held on a
-/// grid: each substring's irradiance is rounded to a multiple of twice the irradiance threshold and its
-/// temperature to a multiple of twice the temperature threshold, and the curve is replaced only when a
-/// rounded value changes. Curves already prepared are kept, keyed by their rounded conditions, so a sky
+/// Keeps the prepared array curve and its true MPP for the conditions in force. Conditions that move are
+/// held on a grid: each substring's irradiance is rounded to a multiple of twice the irradiance threshold
+/// and its temperature to a multiple of twice the temperature threshold, and the curve is replaced only
+/// when a rounded value changes. A value that is held (the same as at the previous update, or the first
+/// one) is taken exactly, so a constant or a plateau the scenario states is simulated as stated; the
+/// runner updates once more on the first tick after the sky stopped moving. Curves already prepared are kept, keyed by their rounded conditions, so a sky
 /// that returns to a state seen before (a ramp back down, a shadow edge moving on) costs a look-up.
 /// </summary>
 /// <remarks>
@@ -27,7 +29,7 @@ public sealed class ArrayCurveCache
 
     private readonly PvArray _array;
     private readonly double _irradianceGridWm2, _temperatureGridC;
-    private readonly ArrayConditions _prepared, _rounded;
+    private readonly ArrayConditions _prepared, _rounded, _lastSeen;
     private readonly SubstringTableCache _tables = new();
     private readonly StringCurveCache _strings = new();
     private readonly Dictionary<ConditionsKey, (PreparedArrayCurve Curve, PowerPeaks Peaks)> _store = [];
@@ -47,6 +49,7 @@ public sealed class ArrayCurveCache
         _temperatureGridC = 2 * temperatureThresholdC;
         _prepared = new ArrayConditions(array.Layout.SubstringCount);
         _rounded = new ArrayConditions(array.Layout.SubstringCount);
+        _lastSeen = new ArrayConditions(array.Layout.SubstringCount);
         _probe = new ConditionsKey(_prepared.IrradianceWm2, _prepared.CellTemperatureC);
         // Fixed, distinct weights (the golden-ratio sequence) so that states differing anywhere hash apart.
         _fingerprintWeights = new double[2 * array.Layout.SubstringCount];
@@ -77,8 +80,11 @@ public sealed class ArrayCurveCache
     /// <summary>Replaces the curve if the rounded <paramref name="conditions"/> changed; returns true if it did.</summary>
     public bool Update(ArrayConditions conditions)
     {
-        bool irradianceSame = RoundToGrid(conditions.IrradianceWm2, _rounded.IrradianceWm2, _prepared.IrradianceWm2, _irradianceGridWm2, 0.0);
-        bool temperatureSame = RoundToGrid(conditions.CellTemperatureC, _rounded.CellTemperatureC, _prepared.CellTemperatureC, _temperatureGridC, double.NegativeInfinity);
+        RoundToGrid(conditions.IrradianceWm2, _rounded.IrradianceWm2, _irradianceGridWm2, 0.0);
+        RoundToGrid(conditions.CellTemperatureC, _rounded.CellTemperatureC, _temperatureGridC, double.NegativeInfinity);
+        bool irradianceSame = KeepHeldValues(conditions.IrradianceWm2, _lastSeen.IrradianceWm2, _rounded.IrradianceWm2, _prepared.IrradianceWm2, !_hasCurve);
+        bool temperatureSame = KeepHeldValues(conditions.CellTemperatureC, _lastSeen.CellTemperatureC, _rounded.CellTemperatureC, _prepared.CellTemperatureC, !_hasCurve);
+        _lastSeen.CopyFrom(conditions);
         if (_hasCurve && irradianceSame && temperatureSame) return false;
         _prepared.CopyFrom(_rounded);
         _probe.Refresh(_fingerprintWeights);
@@ -106,30 +112,36 @@ public sealed class ArrayCurveCache
 
     /// <summary>
     /// Rounds every value to the nearest multiple of <paramref name="grid"/> (ties to even, no lower than
-    /// <paramref name="floor"/>) into <paramref name="rounded"/>; returns true if the result equals
-    /// <paramref name="prepared"/>. Four values at a time where the machine has 256-bit vectors; the
-    /// vector and scalar paths are the same IEEE operations, so the result does not depend on the machine.
+    /// <paramref name="floor"/>) into <paramref name="rounded"/>. Four values at a time where the machine
+    /// has 256-bit vectors; the vector and scalar paths are the same IEEE operations, so the result does
+    /// not depend on the machine.
     /// </summary>
-    private static bool RoundToGrid(double[] values, double[] rounded, double[] prepared, double grid, double floor)
+    private static void RoundToGrid(double[] values, double[] rounded, double grid, double floor)
     {
         int n = values.Length, k = 0;
-        bool same = true;
         if (Vector256.IsHardwareAccelerated)
         {
             var g = Vector256.Create(grid);
             var f = Vector256.Create(floor);
             for (; k <= n - Vector256<double>.Count; k += Vector256<double>.Count)
             {
-                var r = Vector256.Max(Vector256.Round(Vector256.LoadUnsafe(ref values[k]) / g) * g, f);
-                r.StoreUnsafe(ref rounded[k]);
-                same &= Vector256.EqualsAll(r, Vector256.LoadUnsafe(ref prepared[k]));
+                Vector256.Max(Vector256.Round(Vector256.LoadUnsafe(ref values[k]) / g) * g, f).StoreUnsafe(ref rounded[k]);
             }
         }
-        for (; k < n; k++)
+        for (; k < n; k++) rounded[k] = Math.Max(Math.Round(values[k] / grid) * grid, floor);
+    }
+
+    /// <summary>
+    /// Replaces a rounded value by the exact one where it is held (equal to <paramref name="lastSeen"/>, or
+    /// everywhere when <paramref name="first"/>); returns true if the result equals <paramref name="prepared"/>.
+    /// </summary>
+    private static bool KeepHeldValues(double[] values, double[] lastSeen, double[] rounded, double[] prepared, bool first)
+    {
+        bool same = true;
+        for (int k = 0; k < values.Length; k++)
         {
-            double r = Math.Max(Math.Round(values[k] / grid) * grid, floor);
-            rounded[k] = r;
-            same &= r == prepared[k];
+            if (first || values[k] == lastSeen[k]) rounded[k] = values[k];
+            same &= rounded[k] == prepared[k];
         }
         return same;
     }

@@ -27,6 +27,12 @@ public interface IFrontEnd
     /// <summary>Duty cycle in force [-] (NaN for the ideal source).</summary>
     double DutyCycle { get; }
 
+    /// <summary>Average inductor current [A] (NaN for the ideal source).</summary>
+    double InductorCurrentA { get; }
+
+    /// <summary>Time since reset in discontinuous conduction [s] (NaN for the ideal source).</summary>
+    double DiscontinuousTimeS { get; }
+
     /// <summary>Energies since reset.</summary>
     EnergyLedger Energy { get; }
 

@@ -109,6 +109,12 @@ public sealed class IdealSourceFrontEnd(ConverterSettings settings) : IFrontEnd
     public double DutyCycle => double.NaN;
 
     /// <inheritdoc/>
+    public double InductorCurrentA => double.NaN;
+
+    /// <inheritdoc/>
+    public double DiscontinuousTimeS => double.NaN;
+
+    /// <inheritdoc/>
     public EnergyLedger Energy => _energy;
 
     /// <inheritdoc/>

@@ -88,6 +88,7 @@ public sealed class ScenarioRunner
         var snapshotTimes = scenario.Scoring.SnapshotTimes.OrderBy(t => t).ToList();
         int nextSnapshot = 0;
         double lastChangeS = 0, lastTickS = 0;
+        bool settlePending = false;
         long reportEvery = Math.Max(1, totalSteps / 200);
 
         for (long n = 1; n <= totalSteps; n++)
@@ -103,6 +104,13 @@ public sealed class ScenarioRunner
                 {
                     Array.Copy(factors, previousFactors, substrings);
                     cache.Update(conditions);
+                    settlePending = true;
+                }
+                else if (settlePending)
+                {
+                    // The sky stopped moving: the held values are now prepared exactly as the scenario states them.
+                    cache.Update(conditions);
+                    settlePending = false;
                 }
                 if (eventLabel is not null)
                 {
@@ -154,8 +162,9 @@ public sealed class ScenarioRunner
             lane.Sink?.Dispose();
             var scores = lane.Scorer.Finish(end);
             double meanNs = lane.TimedCalls > 0 ? lane.ComputeTicks * 1e9 / Stopwatch.Frequency / lane.TimedCalls : 0;
+            double dcm = lane.FrontEnd.DiscontinuousTimeS;
             return new TrackerResult(lane.Spec.Name, lane.Spec.Descriptor.Kind, lane.Spec.SamplePeriodS, lane.Spec.Settings.All,
-                lane.Failure is null ? scores : null, lane.Failure, lane.Calls, meanNs);
+                lane.Failure is null ? scores : null, lane.Failure, lane.Calls, meanNs, double.IsNaN(dcm) ? null : dcm);
         }).ToList();
         progress?.Report(1.0);
         return new RunResult(scenario.Name, scenario.Description, sim.Seed, PlantDigest(scenario), end, h, results, snapshots,
@@ -246,11 +255,16 @@ public sealed class ScenarioRunner
 
     private static void WriteSeries(TrackerLane lane, double interval, double t, double v, double i, double p, PowerPeak mpp, double h)
     {
+        var frontEnd = lane.FrontEnd;
         lane.SumV += v; lane.SumI += i; lane.SumP += p; lane.SumPmpp += mpp.PowerW; lane.SeriesCount++;
+        lane.SumInductorA += frontEnd.InductorCurrentA; lane.SumDuty += frontEnd.DutyCycle;
         if (interval > 0 && t < lane.NextSeriesS - 0.5 * h) return;
         int c = lane.SeriesCount;
-        lane.Sink!.Write(new SeriesRow(t, lane.SumV / c, lane.SumI / c, lane.SumP / c, lane.SumPmpp / c, mpp.VoltageV, lane.Command));
-        lane.SumV = lane.SumI = lane.SumP = lane.SumPmpp = 0;
+        double dcm = frontEnd.DiscontinuousTimeS;
+        lane.Sink!.Write(new SeriesRow(t, lane.SumV / c, lane.SumI / c, lane.SumP / c, lane.SumPmpp / c, mpp.VoltageV, lane.Command,
+            lane.SumInductorA / c, lane.SumDuty / c, Math.Clamp((dcm - lane.SeriesDiscontinuousS) / (c * h), 0.0, 1.0)));
+        lane.SeriesDiscontinuousS = dcm;
+        lane.SumV = lane.SumI = lane.SumP = lane.SumPmpp = lane.SumInductorA = lane.SumDuty = 0;
         lane.SeriesCount = 0;
         lane.NextSeriesS += interval;
     }

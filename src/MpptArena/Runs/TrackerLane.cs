@@ -41,6 +41,7 @@ internal sealed class TrackerLane
     // Series downsampling: means over the interval.
     public double SumV, SumI, SumP, SumPmpp;
     public int SeriesCount;
+    public double SumInductorA, SumDuty, SeriesDiscontinuousS;
     public double NextSeriesS;
 
     /// <summary>Checks a command against the contract; returns a failure reason or null.</summary>

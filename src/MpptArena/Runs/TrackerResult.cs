@@ -11,6 +11,7 @@ namespace MpptArena.Runs;
 /// <param name="Failure">Failure, or null.</param>
 /// <param name="TrackerCalls">Number of tracker calls made.</param>
 /// <param name="MeanComputeNs">Mean wall time per tracker call [ns], timed on one call in 16; informational, machine dependent.</param>
+/// <param name="DiscontinuousTimeS">Time the converter spent in discontinuous conduction [s] (until a failure stopped it); null for the ideal source.</param>
 public sealed record TrackerResult(
     string Name,
     string Kind,
@@ -19,4 +20,5 @@ public sealed record TrackerResult(
     TrackerScores? Scores,
     TrackerFailure? Failure,
     long TrackerCalls,
-    double MeanComputeNs);
+    double MeanComputeNs,
+    double? DiscontinuousTimeS = null);

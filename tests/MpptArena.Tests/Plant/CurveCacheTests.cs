@@ -104,4 +104,30 @@ public class CurveCacheTests
         Assert.Equal(dense.Global.PowerW, cache.Peaks.Global.PowerW, dense.Global.PowerW * 1e-9);
         Assert.Equal(dense.Global.VoltageV, cache.Peaks.Global.VoltageV, 1e-3);
     }
+
+    [Fact]
+    public void HeldConditionsArePreparedExactlyAsStated()
+    {
+        // 25 degC is not a multiple of the 0.4 K grid: a constant 25 degC sky must still be simulated at
+        // 25 degC, and so must the plateau a ramp ends on; only moving values sit on the grid.
+        var array = ReferenceModules.Array(10, 1);
+        var cache = new ArrayCurveCache(array, 1.0, 0.2);
+        var c = array.UniformConditions(1000, 25);
+        cache.Update(c);
+        Assert.All(cache.PreparedConditions.CellTemperatureC, t => Assert.Equal(25.0, t));
+        Assert.All(cache.PreparedConditions.IrradianceWm2, g => Assert.Equal(1000.0, g));
+        for (double g = 1000; g >= 851; g -= 3.7)
+        {
+            c.IrradianceWm2.AsSpan().Fill(g);
+            cache.Update(c);
+            Assert.All(cache.PreparedConditions.IrradianceWm2, p => Assert.Equal(Math.Round(g / 2) * 2, p));
+            Assert.All(cache.PreparedConditions.CellTemperatureC, t => Assert.Equal(25.0, t));
+        }
+        c.IrradianceWm2.AsSpan().Fill(850.3);
+        cache.Update(c);
+        Assert.Equal(850.0, cache.PreparedConditions.IrradianceWm2[0]);
+        Assert.True(cache.Update(c), "the plateau is prepared once more, exactly");
+        Assert.All(cache.PreparedConditions.IrradianceWm2, p => Assert.Equal(850.3, p));
+        Assert.False(cache.Update(c));
+    }
 }
