@@ -99,6 +99,9 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
     /// <summary>Switching period Ts [s].</summary>
     protected double SwitchingPeriodS => 1.0 / Settings.SwitchingFrequencyHz;
 
+    /// <summary>Shortest sub-step a change of conduction mode is refined to [s]: an eighth of a switching period.</summary>
+    private double RefinedStepS => 0.125 * SwitchingPeriodS;
+
     /// <summary>True when the inductor current falls to zero within each switching period at the present state and duty.</summary>
     public bool IsDiscontinuous => _i <= 0 || !OffInterval(_duty, _i, _v, out _);
 
@@ -304,15 +307,24 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
         var k1 = Derivatives(curve, v, i, law);
         double lambda = DiscontinuousPoleRate(k1.Duty, v, i);
         SubstepEnd next;
+        double lambdaEnd;
         if (lambda * dtS > 1)
         {
-            next = ExponentialStages(curve, dtS, law, lambda, k1);
+            next = ExponentialStages(curve, dtS, law, lambda, k1, out lambdaEnd);
         }
         else
         {
-            next = ClassicalStages(curve, dtS, law, k1, out double lambdaEnd);
+            next = ClassicalStages(curve, dtS, law, k1, out lambdaEnd);
             // Entered deep DCM within the sub-step (its last stage): integrate it as one that starts there.
-            if (lambdaEnd * dtS > 1) next = ExponentialStages(curve, dtS, law, lambdaEnd, k1);
+            if (lambdaEnd * dtS > 1) next = ExponentialStages(curve, dtS, law, lambdaEnd, k1, out _);
+        }
+        // The conduction mode changes within the sub-step: the equations have a kink there (d2 reaches
+        // 1 - d1), which a step across it resolves only to first order. Such a sub-step is cut into
+        // quarters, down to an eighth of a switching period, so the error stays that of the smooth parts.
+        if ((lambda > 0) != (lambdaEnd > 0) && dtS > RefinedStepS)
+        {
+            for (int q = 0; q < 4; q++) RungeKuttaStep(0.25 * dtS, curve, command, kind);
+            return;
         }
         _v = next.V;
         _i = next.I;
@@ -347,7 +359,7 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
     /// ETDRK4 (Cox and Matthews 2002, eqs. 26-29) for di/dt = -lambda i + N with N = f_i + lambda i, and
     /// the classical RK4 stages for the capacitor voltage and the ledger.
     /// </summary>
-    private SubstepEnd ExponentialStages(PreparedArrayCurve curve, double h, in DutyLaw law, double lambda, in Stage k1)
+    private SubstepEnd ExponentialStages(PreparedArrayCurve curve, double h, in DutyLaw law, double lambda, in Stage k1, out double lambdaEnd)
     {
         double v = _v, i = _i;
         double z = -lambda * h;
@@ -366,7 +378,9 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
         var k3 = Derivatives(curve, v + 0.5 * h * k2.Dv, ib, law);
         double n3 = k3.Di + lambda * ib;
         double ic = ia * eHalf + q * (2 * n3 - n1);
-        var k4 = Derivatives(curve, v + h * k3.Dv, ic, law);
+        double v4 = v + h * k3.Dv;
+        var k4 = Derivatives(curve, v4, ic, law);
+        lambdaEnd = DiscontinuousPoleRate(k4.Duty, v4, Math.Max(ic, 0.0));
         double n4 = k4.Di + lambda * ic;
         return Combine(h, v + h / 6 * (k1.Dv + 2 * k2.Dv + 2 * k3.Dv + k4.Dv), i * eFull + w1 * n1 + 2 * w2 * (n2 + n3) + w3 * n4, k1, k2, k3, k4);
     }
