@@ -100,6 +100,8 @@ internal static class ExplainCommand
         Line(0, "sensors:");
         Line(1, $"voltage: {Adc(s.Sensors.Voltage, "v", c)}");
         Line(1, $"current: {Adc(s.Sensors.Current, "a", c)}");
+        Line(1, $"current_measures: {(s.Sensors.CurrentMeasures == Sensing.CurrentSignal.InductorCurrent ? "inductor" : "pv")}");
+        Line(1, $"ripple: {(s.Sensors.Ripple is not { } ripple ? "none   # conversions see period means" : ripple.CarrierTriggered ? $"{{ trigger: carrier, phase: {N(ripple.PhaseFraction)} }}" : "{ trigger: free_running }")}");
 
         var sim = s.Simulation;
         Line(0, "simulation:");

@@ -109,6 +109,71 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
     public double DiscontinuousTimeS => _discontinuousS;
 
     /// <inheritdoc/>
+    /// <remarks>
+    /// The switching waveforms of the averaged state (Erickson and Maksimovic 2001, ch. 2 and 5): the
+    /// inductor current is a triangle about its average, rising for d1 Ts and falling for the rest of
+    /// the period in CCM (peak-to-peak (V_on - R_L i) d1 Ts / L), or rising from zero for d1 Ts, falling to zero in
+    /// d2 Ts and resting at zero in DCM (peak 2 i / (d1 + d2), which is V_on d1 Ts / L in steady state).
+    /// The converter's input current is that triangle (boost) or its part while the switch is on (buck);
+    /// the input capacitor carries its difference from the mean, so the PV voltage ripple is
+    /// (1/C) times its integral, piecewise quadratic, with zero mean over the period. The array current
+    /// is the curve's at that instantaneous voltage.
+    /// </remarks>
+    public (double VoltageV, double PvCurrentA, double InductorCurrentA) InstantAt(double phase)
+    {
+        double d1 = _duty, i = _i;
+        if (d1 <= 0 || d1 >= 1 || i <= 0) return (_v, PvCurrentA, i);
+        bool continuous = OffInterval(d1, i, _v, out double d2);
+        var (on, _) = IntervalVoltages(_v, i);
+        // Inductor current at the segment ends: [0, d1] rising, [d1, e] falling, [e, 1] at zero (DCM).
+        double start, peak, end = d1 + d2;
+        if (continuous)
+        {
+            // The inductor's voltage while the switch is on, its resistive drop included.
+            double ripple = Math.Max(on - Settings.InductorResistanceOhm * i, 0.0) * d1 * SwitchingPeriodS / Settings.InductanceH;
+            start = i - 0.5 * ripple;
+            peak = i + 0.5 * ripple;
+        }
+        else
+        {
+            start = 0;
+            peak = end > 0 ? 2 * i / end : 0;
+        }
+        Span<double> bounds = [0, d1, end, 1];
+        Span<double> fromA = [start, peak, 0];
+        Span<double> toA = [peak, continuous ? start : 0, 0];
+        bool inputWhenOff = InductorCarriesInputCurrent;
+        phase -= Math.Floor(phase);
+
+        // The input current's mean, the charge Q(theta) = integral of (mean - i_in) and its mean (Simpson's
+        // rule, exact for the quadratic Q on each linear piece of i_in), in units of Ts.
+        double meanIn = 0;
+        for (int k = 0; k < 3; k++)
+        {
+            if (k > 0 && !inputWhenOff) break;
+            meanIn += (bounds[k + 1] - bounds[k]) * 0.5 * (fromA[k] + toA[k]);
+        }
+        double q = 0, meanQ = 0, qAtPhase = 0, inductorAtPhase = 0;
+        for (int k = 0; k < 3; k++)
+        {
+            double length = bounds[k + 1] - bounds[k];
+            if (length <= 0) continue;
+            double a = k == 0 || inputWhenOff ? fromA[k] : 0, b = k == 0 || inputWhenOff ? toA[k] : 0;
+            double Charge(double s) => (meanIn - a) * s - 0.5 * (b - a) * s * s / length;
+            meanQ += length / 6 * (q + 4 * (q + Charge(0.5 * length)) + q + Charge(length));
+            if (phase >= bounds[k] && phase < bounds[k + 1])
+            {
+                double s = phase - bounds[k];
+                qAtPhase = q + Charge(s);
+                inductorAtPhase = fromA[k] + (toA[k] - fromA[k]) * s / length;
+            }
+            q += Charge(length);
+        }
+        double v = _v + SwitchingPeriodS / Settings.InputCapacitanceF * (qAtPhase - meanQ);
+        return (v, _lastCurve?.CurrentAtVoltage(v) ?? 0.0, inductorAtPhase);
+    }
+
+    /// <inheritdoc/>
     public EnergyLedger Energy => _energy;
 
     /// <inheritdoc/>

@@ -33,6 +33,13 @@ public interface IFrontEnd
     /// <summary>Time since reset in discontinuous conduction [s] (NaN for the ideal source).</summary>
     double DiscontinuousTimeS { get; }
 
+    /// <summary>
+    /// The instantaneous PV voltage [V], PV current [A] and inductor current [A] at <paramref name="phase"/>
+    /// of the present switching period (0 = the switch turns on), switching ripple included. The ideal
+    /// source has no ripple: its values at every phase, and NaN for the inductor.
+    /// </summary>
+    (double VoltageV, double PvCurrentA, double InductorCurrentA) InstantAt(double phase);
+
     /// <summary>Energies since reset.</summary>
     EnergyLedger Energy { get; }
 

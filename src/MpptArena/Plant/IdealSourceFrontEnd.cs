@@ -115,6 +115,9 @@ public sealed class IdealSourceFrontEnd(ConverterSettings settings) : IFrontEnd
     public double DiscontinuousTimeS => double.NaN;
 
     /// <inheritdoc/>
+    public (double VoltageV, double PvCurrentA, double InductorCurrentA) InstantAt(double phase) => (PvVoltageV, PvCurrentA, double.NaN);
+
+    /// <inheritdoc/>
     public EnergyLedger Energy => _energy;
 
     /// <inheritdoc/>

@@ -107,7 +107,7 @@ public static class ScenarioLoader
         var warnings = new List<string>();
         if (IdealityWarning(module) is { } w) warnings.Add($"{moduleMap.Location}: {w}");
         var array = ReadArray(Required(root, "array", ArrayKeys), module);
-        var sensors = ReadSensors(Required(root, "sensors", ["voltage", "current"]));
+        var sensors = ReadSensors(Required(root, "sensors", SensorKeys));
         var converter = ReadConverter(Required(root, "converter", ConverterKeys), sensors);
         CheckPlant(root, array, converter, sensors);
         var windows = new List<ScoringWindow>();
@@ -200,13 +200,24 @@ public static class ScenarioLoader
     }
 
     private static readonly string[] VoltageSensorKeys = ["bits", "gain_error", "averaging_samples", "averaging_window_us", "full_scale_v", "offset_v", "noise_rms_v"];
-    private static readonly string[] CurrentSensorKeys = ["bits", "gain_error", "averaging_samples", "averaging_window_us", "full_scale_a", "offset_a", "noise_rms_a"];
+    private static readonly string[] CurrentSensorKeys = ["bits", "gain_error", "averaging_samples", "averaging_window_us", "full_scale_a", "offset_a", "noise_rms_a", "measures"];
+
+    private static readonly string[] SensorKeys = ["voltage", "current", "ripple"];
 
     private static SensorSettings ReadSensors(YamlMap s)
     {
         var v = s.Map("voltage", VoltageSensorKeys) ?? throw new ArenaInputException("missing required section 'voltage' in 'scenario.sensors'", "voltage", s.Location);
         var i = s.Map("current", CurrentSensorKeys) ?? throw new ArenaInputException("missing required section 'current' in 'scenario.sensors'", "current", s.Location);
-        return new SensorSettings(ReadAdc(v, "v"), ReadAdc(i, "a"));
+        var measures = i.Text("measures", "pv", ["pv", "inductor"]) == "inductor" ? CurrentSignal.InductorCurrent : CurrentSignal.PvCurrent;
+        RippleSettings? ripple = null;
+        if (s.Map("ripple", ["trigger", "phase"]) is { } r)
+        {
+            bool carrier = r.Text("trigger", "carrier", ["carrier", "free_running"]) == "carrier";
+            if (!carrier && r.Has("phase")) throw r.Error(r.Node("phase")!, "'phase' goes with 'trigger: carrier'; a free-running ADC converts at every phase", "phase");
+            ripple = new RippleSettings(carrier, r.Number("phase", 0.5, 0, 1));
+            if (ripple.PhaseFraction >= 1) throw r.Error(r.Node("phase")!, "'phase' must be below 1 (a fraction of the switching period, 0 = switch on)", "phase");
+        }
+        return new SensorSettings(ReadAdc(v, "v"), ReadAdc(i, "a"), measures, ripple);
     }
 
     /// <summary>Highest voltage any scenario value may name [V]: well above the 1500 V DC of the largest PV systems.</summary>
@@ -228,7 +239,7 @@ public static class ScenarioLoader
         double voc = SingleDiodeModel.OpenCircuitVoltageV(module) * series;
         double isc = SingleDiodeModel.ShortCircuitCurrentA(module) * array.Layout.StringsInParallel;
         double vmp = SingleDiodeModel.MaximumPowerPoint(module).VoltageV * series;
-        var sensorMap = root.Map("sensors", ["voltage", "current"])!;
+        var sensorMap = root.Map("sensors", SensorKeys)!;
         var converterMap = root.Map("converter", ConverterKeys)!;
         if (sensors.Voltage.FullScale < voc)
         {
@@ -239,6 +250,15 @@ public static class ScenarioLoader
         {
             var m = sensorMap.Map("current", CurrentSensorKeys)!;
             throw m.Error(m.Node("full_scale_a")!, string.Format(inv, "the current sensor's full scale {0:0.###} A is below the array's short-circuit current at STC, {1:0.###} A: readings above it clip; set full_scale_a to at least {1:0.###} A", sensors.Current.FullScale, isc), "full_scale_a");
+        }
+        if (converter.Kind == FrontEndKind.IdealSource && sensors.Ripple is not null)
+        {
+            throw sensorMap.Error(sensorMap.Node("ripple")!, "'ripple' needs a switching converter (boost or buck); the ideal source has no switching ripple", "ripple");
+        }
+        if (converter.Kind == FrontEndKind.IdealSource && sensors.CurrentMeasures == CurrentSignal.InductorCurrent)
+        {
+            var m = sensorMap.Map("current", CurrentSensorKeys)!;
+            throw m.Error(m.Node("measures")!, "'measures: inductor' needs a switching converter (boost or buck); the ideal source has no inductor", "measures");
         }
         if (converter.Kind == FrontEndKind.Boost && converter.BusVoltageV <= vmp)
         {

@@ -4,11 +4,16 @@ namespace MpptArena.Sensing;
 /// The voltage and current ADC channels of one tracker with their averaging schedule: the N
 /// conversions of one tracker sample are spread evenly over the averaging window that ends at the
 /// sample instant, each at the plant step nearest its time (several at one step when the window is
-/// shorter than N plant steps; each conversion still draws its own noise).
+/// shorter than N plant steps; each conversion still draws its own noise). The current channel reads the
+/// PV or the inductor current; with ripple on, each conversion samples the switching waveform at its
+/// phase (<see cref="RippleSettings"/>; free-running phases from a stream of their own).
 /// </summary>
 public sealed class SensorChain
 {
     private readonly AdcChannel _voltage, _current;
+    private readonly bool _inductor;
+    private readonly RippleSettings? _ripple;
+    private readonly DeterministicRandom? _phases;
     private readonly int[] _conversionsAtStep;
     private long _vSum, _iSum;
     private int _count;
@@ -18,6 +23,9 @@ public sealed class SensorChain
     {
         _voltage = new AdcChannel(settings.Voltage, DeterministicRandom.Derive(seed, 1));
         _current = new AdcChannel(settings.Current, DeterministicRandom.Derive(seed, 2));
+        _inductor = settings.CurrentMeasures == CurrentSignal.InductorCurrent;
+        _ripple = settings.Ripple;
+        if (_ripple is { CarrierTriggered: false }) _phases = new DeterministicRandom(DeterministicRandom.Derive(seed, 3));
         _conversionsAtStep = new int[stepsPerSample];
         int n = Math.Max(1, Math.Max(settings.Voltage.AveragingSamples, settings.Current.AveragingSamples));
         double window = Math.Max(settings.Voltage.AveragingWindowS, settings.Current.AveragingWindowS);
@@ -40,10 +48,27 @@ public sealed class SensorChain
         }
     }
 
-    /// <summary>As <see cref="OnPlantStep(int, double, double)"/>, reading the front end's voltage and current only when a conversion is due.</summary>
+    /// <summary>
+    /// As <see cref="OnPlantStep(int, double, double)"/>, reading the front end only when a conversion is
+    /// due: its period means, or with ripple on its instantaneous values at each conversion's phase.
+    /// </summary>
     public void OnPlantStep(int stepInSample, Plant.IFrontEnd frontEnd)
     {
-        if (_conversionsAtStep[stepInSample] > 0) OnPlantStep(stepInSample, frontEnd.PvVoltageV, frontEnd.PvCurrentA);
+        int due = _conversionsAtStep[stepInSample];
+        if (due == 0) return;
+        if (_ripple is null)
+        {
+            OnPlantStep(stepInSample, frontEnd.PvVoltageV, _inductor ? frontEnd.InductorCurrentA : frontEnd.PvCurrentA);
+            return;
+        }
+        for (int k = due; k > 0; k--)
+        {
+            double phase = _phases?.NextDouble() ?? _ripple.PhaseFraction;
+            var (v, ipv, inductor) = frontEnd.InstantAt(phase);
+            _vSum += _voltage.Convert(v);
+            _iSum += _current.Convert(_inductor ? inductor : ipv);
+            _count++;
+        }
     }
 
     /// <summary>Averaged codes and scaled values of the sample just completed; clears the sums.</summary>
