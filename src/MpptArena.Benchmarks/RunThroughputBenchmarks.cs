@@ -10,13 +10,14 @@ namespace MpptArena.Benchmarks;
 /// <summary>
 /// Whole runs with one perturb-and-observe tracker (10 ms period) on the 2 x 10 x 3 array, to read off
 /// the ratio of simulated time to wall time, curve re-preparation included: the EN 50530 steepest
-/// low-range block and the moving-shadow demo, in converter (boost) and ideal-source mode. The reference
+/// low-range block and the moving-shadow demo, in converter (boost) and ideal-source mode, and the same
+/// block on one string behind a 20 kHz boost, in discontinuous conduction below about 230 W/m2. The reference
 /// is a straightforward RK4 loop at 50 us over the exact nested solve, timed over a short span.
 /// </summary>
 [MemoryDiagnoser]
 public class RunThroughputBenchmarks
 {
-    private Scenario _rampBoost = null!, _rampIdeal = null!, _shadowBoost = null!, _shadowIdeal = null!, _blockBoost = null!, _blockIdeal = null!;
+    private Scenario _rampBoost = null!, _rampIdeal = null!, _shadowBoost = null!, _shadowIdeal = null!, _blockBoost = null!, _blockIdeal = null!, _blockLowLight = null!;
     private PvArray _array = null!;
     private ExactArrayCurve _exact = null!;
 
@@ -36,10 +37,10 @@ public class RunThroughputBenchmarks
         // The target's array: two strings of ten modules.
         var layout = demo.Array.Layout with { StringsInParallel = 2 };
         var po = demo.Trackers.First(t => t.Descriptor.Kind == "perturb_observe") with { SamplePeriodS = 0.01 };
-        Scenario Make(Scenario s, FrontEndKind kind, double stepS, double durationS = SimulatedS) => s with
+        Scenario Make(Scenario s, FrontEndKind kind, double stepS, double durationS = SimulatedS, int strings = 2) => s with
         {
-            Array = s.Array with { Layout = layout },
-            Converter = demo.Converter with { Kind = kind, MaxVoltageReferenceV = 1000 },
+            Array = s.Array with { Layout = layout with { StringsInParallel = strings } },
+            Converter = demo.Converter with { Kind = kind, MaxVoltageReferenceV = 1000, SwitchingFrequencyHz = 20e3 },
             Sensors = demo.Sensors,
             Trackers = [po],
             Simulation = s.Simulation with { DurationS = durationS, PlantStepS = stepS, EnvironmentStepS = Math.Max(1e-3, stepS), SeriesIntervalS = 0 },
@@ -50,6 +51,7 @@ public class RunThroughputBenchmarks
         _rampIdeal = Make(rampScenario, FrontEndKind.IdealSource, 10e-3);
         _blockBoost = Make(rampScenario, FrontEndKind.Boost, 1e-3, 360);
         _blockIdeal = Make(rampScenario, FrontEndKind.IdealSource, 10e-3, 360);
+        _blockLowLight = Make(rampScenario, FrontEndKind.Boost, 1e-3, 360, strings: 1);
         _shadowBoost = Make(demo, FrontEndKind.Boost, 1e-3, demo.Simulation.DurationS);
         _shadowIdeal = Make(demo, FrontEndKind.IdealSource, 10e-3, demo.Simulation.DurationS);
         _array = _shadowBoost.Array;
@@ -83,6 +85,9 @@ public class RunThroughputBenchmarks
 
     [Benchmark(Description = "EN 50530 50 W/m2/s block, boost, whole block (360 s, ten cycles)")]
     public RunResult BlockBoost() => new ScenarioRunner().Run(_blockBoost);
+
+    [Benchmark(Description = "EN 50530 50 W/m2/s block, one string, 20 kHz boost, whole block (360 s; DCM below about 230 W/m2)")]
+    public RunResult BlockLowLight() => new ScenarioRunner().Run(_blockLowLight);
 
     [Benchmark(Description = "EN 50530 50 W/m2/s block, ideal source, whole block (360 s)")]
     public RunResult BlockIdeal() => new ScenarioRunner().Run(_blockIdeal);
