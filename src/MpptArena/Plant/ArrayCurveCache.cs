@@ -7,9 +7,11 @@ namespace MpptArena.Plant;
 /// Keeps the prepared array curve and its true MPP for the conditions in force. Conditions that move are
 /// held on a grid: each substring's irradiance is rounded to a multiple of twice the irradiance threshold
 /// and its temperature to a multiple of twice the temperature threshold, and the curve is replaced only
-/// when a rounded value changes. A value that is held (the same as at the previous update, or the first
-/// one) is taken exactly, so a constant or a plateau the scenario states is simulated as stated; the
-/// runner updates once more on the first tick after the sky stopped moving. Curves already prepared are kept, keyed by their rounded conditions, so a sky
+/// when a rounded value changes. A value that has not changed since the first update (a constant of the
+/// scenario, or a substring the shadow never reached) is taken exactly, so a constant 25 degC is
+/// simulated at 25 degC, not at the grid's 24.8 degC. A value that moved stays on the grid, also where it
+/// comes to rest: taking rests exactly cost the moving-shadow demo 13 % more preparations (56 of 419,
+/// 0.74 ms each), and a rest is within the threshold anyway. Curves already prepared are kept, keyed by their rounded conditions, so a sky
 /// that returns to a state seen before (a ramp back down, a shadow edge moving on) costs a look-up.
 /// </summary>
 /// <remarks>
@@ -29,7 +31,8 @@ public sealed class ArrayCurveCache
 
     private readonly PvArray _array;
     private readonly double _irradianceGridWm2, _temperatureGridC;
-    private readonly ArrayConditions _prepared, _rounded, _lastSeen;
+    private readonly ArrayConditions _prepared, _rounded, _first;
+    private readonly bool[] _irradianceMoved, _temperatureMoved;
     private readonly SubstringTableCache _tables = new();
     private readonly StringCurveCache _strings = new();
     private readonly Dictionary<ConditionsKey, (PreparedArrayCurve Curve, PowerPeaks Peaks)> _store = [];
@@ -49,7 +52,9 @@ public sealed class ArrayCurveCache
         _temperatureGridC = 2 * temperatureThresholdC;
         _prepared = new ArrayConditions(array.Layout.SubstringCount);
         _rounded = new ArrayConditions(array.Layout.SubstringCount);
-        _lastSeen = new ArrayConditions(array.Layout.SubstringCount);
+        _first = new ArrayConditions(array.Layout.SubstringCount);
+        _irradianceMoved = new bool[array.Layout.SubstringCount];
+        _temperatureMoved = new bool[array.Layout.SubstringCount];
         _probe = new ConditionsKey(_prepared.IrradianceWm2, _prepared.CellTemperatureC);
         // Fixed, distinct weights (the golden-ratio sequence) so that states differing anywhere hash apart.
         _fingerprintWeights = new double[2 * array.Layout.SubstringCount];
@@ -82,9 +87,9 @@ public sealed class ArrayCurveCache
     {
         RoundToGrid(conditions.IrradianceWm2, _rounded.IrradianceWm2, _irradianceGridWm2, 0.0);
         RoundToGrid(conditions.CellTemperatureC, _rounded.CellTemperatureC, _temperatureGridC, double.NegativeInfinity);
-        bool irradianceSame = KeepHeldValues(conditions.IrradianceWm2, _lastSeen.IrradianceWm2, _rounded.IrradianceWm2, _prepared.IrradianceWm2, !_hasCurve);
-        bool temperatureSame = KeepHeldValues(conditions.CellTemperatureC, _lastSeen.CellTemperatureC, _rounded.CellTemperatureC, _prepared.CellTemperatureC, !_hasCurve);
-        _lastSeen.CopyFrom(conditions);
+        if (!_hasCurve) _first.CopyFrom(conditions);
+        bool irradianceSame = KeepUnmovedValues(conditions.IrradianceWm2, _first.IrradianceWm2, _irradianceMoved, _rounded.IrradianceWm2, _prepared.IrradianceWm2);
+        bool temperatureSame = KeepUnmovedValues(conditions.CellTemperatureC, _first.CellTemperatureC, _temperatureMoved, _rounded.CellTemperatureC, _prepared.CellTemperatureC);
         if (_hasCurve && irradianceSame && temperatureSame) return false;
         _prepared.CopyFrom(_rounded);
         _probe.Refresh(_fingerprintWeights);
@@ -132,15 +137,17 @@ public sealed class ArrayCurveCache
     }
 
     /// <summary>
-    /// Replaces a rounded value by the exact one where it is held (equal to <paramref name="lastSeen"/>, or
-    /// everywhere when <paramref name="first"/>); returns true if the result equals <paramref name="prepared"/>.
+    /// Takes the exact value instead of the rounded one where it still equals its first value
+    /// (<paramref name="first"/>; once it differed, <paramref name="moved"/> remembers it); returns true if
+    /// the result equals <paramref name="prepared"/>.
     /// </summary>
-    private static bool KeepHeldValues(double[] values, double[] lastSeen, double[] rounded, double[] prepared, bool first)
+    private static bool KeepUnmovedValues(double[] values, double[] first, bool[] moved, double[] rounded, double[] prepared)
     {
         bool same = true;
         for (int k = 0; k < values.Length; k++)
         {
-            if (first || values[k] == lastSeen[k]) rounded[k] = values[k];
+            moved[k] |= values[k] != first[k];
+            if (!moved[k]) rounded[k] = values[k];
             same &= rounded[k] == prepared[k];
         }
         return same;

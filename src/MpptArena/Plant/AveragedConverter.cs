@@ -47,7 +47,7 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
     protected ConverterSettings Settings { get; } = settings;
 
     private double _v, _i, _duty, _integral, _untilUpdateS, _discontinuousS;
-    private double _maxStableStepS = double.PositiveInfinity;
+    private double _maxStableStepS = double.PositiveInfinity, _stabilityLimit = 2.0;
     private PreparedArrayCurve? _lastCurve;
     private EnergyLedger _energy;
 
@@ -196,6 +196,7 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
     public void SetStabilityBound(double maxConductanceS, double stabilityLimit)
     {
         double rate = FastestRateEstimatePerS(maxConductanceS);
+        _stabilityLimit = stabilityLimit;
         _maxStableStepS = rate > 0 ? stabilityLimit / rate : double.PositiveInfinity;
     }
 
@@ -230,7 +231,8 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
         {
             return;
         }
-        int substeps = dtS <= _maxStableStepS ? 1 : (int)Math.Ceiling(dtS / _maxStableStepS);
+        double maxStepS = Math.Max(_maxStableStepS, DiscontinuousStableStepS(curve, command, kind));
+        int substeps = dtS <= maxStepS ? 1 : (int)Math.Ceiling(dtS / maxStepS);
         double h = dtS / substeps;
         if (!digital)
         {
@@ -258,6 +260,21 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
     }
 
     /// <summary>
+    /// Longest stable sub-step [s] when the step starts in discontinuous conduction, else 0. There the
+    /// inductor current's fast modes (DCM pole, current loop, LC) are all in the exactly integrated part
+    /// of <see cref="ExponentialStages"/>, and what is left explicit is the capacitor voltage: rate
+    /// (|g| + Kv) / C with the array's local incremental conductance g (the voltage loop's gain as a margin
+    /// for duty-cycle commands too), within the same stability limit.
+    /// </summary>
+    private double DiscontinuousStableStepS(PreparedArrayCurve curve, double command, TrackerCommandKind kind)
+    {
+        double d = kind == TrackerCommandKind.DutyCycle ? Math.Clamp(command, Settings.MinDuty, Settings.MaxDuty) : _duty;
+        if (d <= 0 || (_i > 0 && OffInterval(d, _i, _v, out _))) return 0.0;
+        curve.CurrentAtVoltage(_v, out double g);
+        return _stabilityLimit * Settings.InputCapacitanceF / (Math.Abs(g) + Kv);
+    }
+
+    /// <summary>
     /// One step of the closed voltage and current loops as an exponential propagation. In the deviations
     /// u = v - v_ref and x = i - i_ref(v), with i_ref = i_pv(v) + Kv u, the loops give exactly
     /// C du/dt = -Kv u - x and dx/dt = -(Kc/L) x - (g + Kv) du/dt, where g = di_pv/dv is the array's
@@ -276,6 +293,8 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
         double v0 = _v, i0 = _i;
         double ipv0 = curve.CurrentAtVoltage(v0, out double g0);
         double u0 = v0 - vRef, x0 = i0 - ipv0 - kv * u0;
+        // Most refusals are already visible at the start (DCM at low light, a saturated modulator).
+        if (!InLinearRange(v0, i0, ipv0 + kv * u0, out double p0Out)) return false;
 
         // Predictor: conductance at the start, half a step, to find the midpoint's conductance.
         var (uP, _) = Propagator(g0, 0.5 * h, c, kv, lambda).Times(u0, x0);
@@ -287,8 +306,7 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
         double vM = vRef + uM, v1 = vRef + u1;
         double ipvM = curve.CurrentAtVoltage(vM), ipv1 = curve.CurrentAtVoltage(v1);
         double iM = xM + ipvM + kv * uM, i1 = x1 + ipv1 + kv * u1;
-        if (!InLinearRange(v0, i0, ipv0 + kv * u0, out double p0Out)
-            || !InLinearRange(vM, iM, ipvM + kv * uM, out double pMOut)
+        if (!InLinearRange(vM, iM, ipvM + kv * uM, out double pMOut)
             || !InLinearRange(v1, i1, ipv1 + kv * u1, out double p1Out))
         {
             return false;
@@ -370,7 +388,7 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
         var law = new DutyLaw(continuous, _duty, command, Ki * _integral);
         double v = _v, i = _i;
         var k1 = Derivatives(curve, v, i, law);
-        double lambda = DiscontinuousPoleRate(k1.Duty, v, i);
+        double lambda = StiffRate(curve, v, i, law, k1);
         SubstepEnd next;
         double lambdaEnd;
         if (lambda * dtS > 1)
@@ -380,8 +398,12 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
         else
         {
             next = ClassicalStages(curve, dtS, law, k1, out lambdaEnd);
-            // Entered deep DCM within the sub-step (its last stage): integrate it as one that starts there.
-            if (lambdaEnd * dtS > 1) next = ExponentialStages(curve, dtS, law, lambdaEnd, k1, out _);
+            // Entered deep DCM within the sub-step (its last stage): integrate it with the stiffness found there.
+            if (lambdaEnd * dtS > 1)
+            {
+                double vEnd = next.V, iEnd = Math.Max(next.I, 0.0);
+                next = ExponentialStages(curve, dtS, law, StiffRate(curve, vEnd, iEnd, law, Derivatives(curve, vEnd, iEnd, law)), k1, out _);
+            }
         }
         // The conduction mode changes within the sub-step: the equations have a kink there (d2 reaches
         // 1 - d1), which a step across it resolves only to first order. Such a sub-step is cut into
@@ -454,6 +476,20 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
         h / 6 * (k1.PvPowerW + 2 * k2.PvPowerW + 2 * k3.PvPowerW + k4.PvPowerW),
         h / 6 * (k1.OutputPowerW + 2 * k2.OutputPowerW + 2 * k3.OutputPowerW + k4.OutputPowerW),
         h / 6 * (k1.LossPowerW + 2 * k2.LossPowerW + 2 * k3.LossPowerW + k4.LossPowerW));
+
+    /// <summary>
+    /// The rate [1/s] of the inductor current's linear part that ETDRK4 takes exactly, in DCM: -d(di/dt)/di
+    /// at the point by a difference quotient (so it includes the continuous current loop's gain and the
+    /// DCM pole's dependence on the duty cycle), at least the DCM pole's own rate; zero in CCM.
+    /// </summary>
+    private double StiffRate(PreparedArrayCurve curve, double v, double i, in DutyLaw law, in Stage at)
+    {
+        double pole = DiscontinuousPoleRate(at.Duty, v, Math.Max(i, 0.0));
+        if (pole == 0) return 0.0;
+        double delta = 1e-7 * Math.Max(Math.Abs(i), 1e-3);
+        double slope = (Derivatives(curve, v, i + delta, law).Di - at.Di) / delta;
+        return Math.Max(pole, -slope);
+    }
 
     /// <summary>
     /// Rate of the inductor current's fast pole in discontinuous conduction [1/s]:

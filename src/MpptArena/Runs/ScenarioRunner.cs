@@ -88,7 +88,6 @@ public sealed class ScenarioRunner
         var snapshotTimes = scenario.Scoring.SnapshotTimes.OrderBy(t => t).ToList();
         int nextSnapshot = 0;
         double lastChangeS = 0, lastTickS = 0;
-        bool settlePending = false;
         long reportEvery = Math.Max(1, totalSteps / 200);
 
         for (long n = 1; n <= totalSteps; n++)
@@ -104,13 +103,6 @@ public sealed class ScenarioRunner
                 {
                     Array.Copy(factors, previousFactors, substrings);
                     cache.Update(conditions);
-                    settlePending = true;
-                }
-                else if (settlePending)
-                {
-                    // The sky stopped moving: the held values are now prepared exactly as the scenario states them.
-                    cache.Update(conditions);
-                    settlePending = false;
                 }
                 if (eventLabel is not null)
                 {

@@ -205,6 +205,33 @@ public class ConverterStepIndependenceTests
     }
 }
 
+public class AntiWindupTests
+{
+    [Theory]
+    [InlineData(0.0)]     // continuous loop
+    [InlineData(20000.0)] // digital loop
+    public void AnIntegratingLoopDoesNotWindUpWhileTheCurrentCannotGoNegative(double loopRateHz)
+    {
+        // A reference step towards open circuit asks for less than zero input current: the diode blocks it, the
+        // voltage slews at i_pv / C, and an integrator that kept integrating would overshoot by its wound-up
+        // charge (common practice: integrate only while the actuator is not saturated).
+        var array = ReferenceModules.Array(10, 1);
+        var curve = new PreparedArrayCurve(array.Solve(array.UniformConditions(300, 25)));
+        var boost = new BoostFrontEnd(new ConverterSettings(FrontEndKind.Boost, VoltageLoopIntegralHz: 20, VoltageLoopRateHz: loopRateHz));
+        boost.SetStabilityBound(1.0, 2.0);
+        boost.Reset(250, curve.CurrentAtVoltage(250));
+        for (int n = 0; n < 2000; n++) boost.Step(100e-6, curve, 250, TrackerCommandKind.VoltageReference);
+        double target = curve.OpenCircuitVoltageV - 25, peak = 0;
+        for (int n = 0; n < 3000; n++)
+        {
+            boost.Step(100e-6, curve, target, TrackerCommandKind.VoltageReference);
+            peak = Math.Max(peak, boost.PvVoltageV);
+        }
+        Assert.Equal(target, boost.PvVoltageV, 0.5);
+        Assert.True(peak - target < 2.0, $"overshoot {peak - target:F2} V on a {target - 250:F0} V step");
+    }
+}
+
 public class ExponentialStepTests
 {
     /// <summary>

@@ -106,17 +106,17 @@ public class CurveCacheTests
     }
 
     [Fact]
-    public void HeldConditionsArePreparedExactlyAsStated()
+    public void ConstantConditionsArePreparedExactlyAsStated()
     {
-        // 25 degC is not a multiple of the 0.4 K grid: a constant 25 degC sky must still be simulated at
-        // 25 degC, and so must the plateau a ramp ends on; only moving values sit on the grid.
+        // 25 degC is not a multiple of the 0.4 K grid: a constant 25 degC must still be simulated at 25 degC
+        // while the irradiance ramps; a value that moved stays on the grid, also at its rest (within dG).
         var array = ReferenceModules.Array(10, 1);
         var cache = new ArrayCurveCache(array, 1.0, 0.2);
         var c = array.UniformConditions(1000, 25);
         cache.Update(c);
         Assert.All(cache.PreparedConditions.CellTemperatureC, t => Assert.Equal(25.0, t));
         Assert.All(cache.PreparedConditions.IrradianceWm2, g => Assert.Equal(1000.0, g));
-        for (double g = 1000; g >= 851; g -= 3.7)
+        for (double g = 1000 - 3.7; g >= 851; g -= 3.7)
         {
             c.IrradianceWm2.AsSpan().Fill(g);
             cache.Update(c);
@@ -125,9 +125,12 @@ public class CurveCacheTests
         }
         c.IrradianceWm2.AsSpan().Fill(850.3);
         cache.Update(c);
-        Assert.Equal(850.0, cache.PreparedConditions.IrradianceWm2[0]);
-        Assert.True(cache.Update(c), "the plateau is prepared once more, exactly");
-        Assert.All(cache.PreparedConditions.IrradianceWm2, p => Assert.Equal(850.3, p));
         Assert.False(cache.Update(c));
+        Assert.All(cache.PreparedConditions.IrradianceWm2, p => Assert.Equal(850.0, p));
+        // Once a substring's temperature moves it joins the grid; the others keep their exact 25 degC.
+        c.CellTemperatureC[0] = 25.1;
+        Assert.True(cache.Update(c));
+        Assert.Equal(25.2, cache.PreparedConditions.CellTemperatureC[0], 12);
+        Assert.Equal(25.0, cache.PreparedConditions.CellTemperatureC[1]);
     }
 }
