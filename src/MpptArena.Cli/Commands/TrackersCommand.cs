@@ -1,6 +1,5 @@
 using MpptArena.Cli.Terminal;
 using System.Globalization;
-using Spectre.Console;
 
 namespace MpptArena.Cli.Commands;
 
@@ -14,8 +13,9 @@ internal static class TrackersCommand
         var c = CultureInfo.InvariantCulture;
         foreach (var d in registry.All)
         {
-            AnsiConsole.MarkupLine($"[bold]{Markup.Escape(d.Kind)}[/]: {Markup.Escape(d.Summary)}");
-            if (d.Source.Length > 0) AnsiConsole.MarkupLine($"  source: {Markup.Escape(d.Source)}");
+            // Plain lines, one per item: piped into grep or a file they must not wrap at a terminal width.
+            StandardOutput.Out.WriteLine($"{d.Kind}: {d.Summary}");
+            if (d.Source.Length > 0) StandardOutput.Out.WriteLine($"  source: {d.Source}");
             foreach (var p in d.Parameters)
             {
                 StandardOutput.Out.WriteLine($"  {p.Name} [{p.Unit}] default {p.Default.ToString("G6", c)}, range {p.Min.ToString("G6", c)} to {p.Max.ToString("G6", c)}: {p.Description}");

@@ -40,5 +40,8 @@ internal static class StandardOutput
         _out = Console.Out;
         _error = Console.Error;
         AnsiConsole.Console = AnsiConsole.Create(new AnsiConsoleSettings { Out = new AnsiConsoleOutput(Out) });
+        // Piped or in a CI log there is no terminal width; Spectre.Console would assume 80 columns and wrap
+        // table rows mid-line. A log line may be as long as it needs.
+        if (Console.IsOutputRedirected) AnsiConsole.Profile.Width = 400;
     }
 }

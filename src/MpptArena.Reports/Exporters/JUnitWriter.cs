@@ -54,7 +54,9 @@ public static class JUnitWriter
         string dir = Path.GetDirectoryName(full)!;
         Directory.CreateDirectory(dir);
         string temp = Path.Combine(dir, $".{Path.GetFileName(full)}.{System.Environment.ProcessId}.tmp");
-        Build(cases).Save(temp);
+        // UTF-8 without a byte-order mark: some CI report readers take a BOM for content before the XML declaration.
+        var settings = new System.Xml.XmlWriterSettings { Encoding = new System.Text.UTF8Encoding(false), Indent = true };
+        using (var writer = System.Xml.XmlWriter.Create(temp, settings)) Build(cases).Save(writer);
         File.Move(temp, full, overwrite: true);
     }
 }

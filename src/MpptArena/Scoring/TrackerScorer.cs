@@ -97,7 +97,9 @@ public sealed class TrackerScorer
         if (s.TimeS - _inBandSince >= _settings.SettlingHoldS - 1e-12)
         {
             _settled = true;
-            _settledAfterS = Math.Max(_inBandSince - _eventS, 0.0);
+            // Both instants lie on the plant-step grid; rounding to 1 ns drops the float noise of their
+            // difference (7.1e-15 s for an event on the sample it settled in) without touching any real time.
+            _settledAfterS = Math.Max(Math.Round(_inBandSince - _eventS, 9), 0.0);
             _spanStartS = s.TimeS;
             _vDevMin = _pDevMin = double.PositiveInfinity;
             _vDevMax = _pDevMax = double.NegativeInfinity;

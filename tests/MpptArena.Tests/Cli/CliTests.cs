@@ -26,6 +26,18 @@ public class CliTests
     }
 
     [Fact]
+    public void TheTrackerListingKeepsEveryParameterOnOneLineWhenPiped()
+    {
+        // Piped output has no terminal width: a line wrapped at 80 columns breaks grep and diff (common practice).
+        var (exit, output, _) = CliProcess.Run(CliProcess.TempFolder(), "trackers");
+        Assert.Equal(0, exit);
+        var lines = output.Split('\n', StringSplitOptions.RemoveEmptyEntries);
+        Assert.Contains(lines, l => l.StartsWith("perturb_observe: "));
+        // Every line is a kind ("kind: summary"), its source, or one parameter with its unit, default and range.
+        Assert.All(lines, l => Assert.Matches(@"^([a-z_]+: .+|  source: .+|  \S+ \[[^\]]*\] default \S+, range \S+ to \S+: .*)$", l.TrimEnd('\r')));
+    }
+
+    [Fact]
     public void UnknownOptionAndMissingFileAreBadInput()
     {
         string dir = CliProcess.TempFolder();

@@ -42,6 +42,20 @@ public class ScorerTests
     }
 
     [Fact]
+    public void AnEventInsideTheBandSettlesAtZeroWithoutFloatNoise()
+    {
+        // Power already at the MPP when the event is marked: the settling time is exactly zero (not the
+        // 1e-15 s left by subtracting two float instants on the step grid). Common practice.
+        // At sample 1001 the event instant 1000 * Dt and the sample's start 1001 * Dt - Dt differ by 2.2e-16 s.
+        var s = Score(_ => (1000, 300), 3, events: (scorer, t) =>
+        {
+            if (Math.Round(t / Dt) == 1001) scorer.MarkEvent((Math.Round(t / Dt) - 1) * Dt, "irradiance change");
+        });
+        Assert.Equal(2, s.Settling.Count);
+        Assert.All(s.Settling, e => Assert.Equal(0.0, e.SettlingTimeS));
+    }
+
+    [Fact]
     public void SquareRippleGivesItsPeakToPeak()
     {
         // Power and voltage alternate between two levels inside the band: peak-to-peak is their difference.
