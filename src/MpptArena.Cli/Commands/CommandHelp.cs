@@ -57,7 +57,8 @@ internal sealed record CommandHelp(string Name, string Arguments, string Summary
         new("explain", "SCENARIO.yaml", "Prints the scenario as the arena will run it, every default filled in, with the plant's derived numbers: the fitted single-diode parameters and ideality factor, the module and array at STC, the converter's reachable PV-voltage window, sensor LSBs, the plant step and where it came from.",
         [("--plugin DLL", "tracker kinds of a .NET assembly the scenario may name (repeatable)")], "./run.sh explain scenarios/demo-moving-shadow.yaml"),
         new("new-tracker", "NAME", "Scaffolds a C# tracker project (tracker, xunit test, scenario) that builds and scores out of the box.",
-        [("--out DIR", "project folder, new or empty (default: NAME)")], "./run.sh new-tracker my-tracker --out ../my-tracker"),
+        [("--out DIR", "project folder, new or empty (default: NAME)"),
+         ("--feed SOURCE", "folder or URL holding the MpptArena package (default: the copy this tool carries, put in the project's packages/)")], "./run.sh new-tracker my-tracker --out ../my-tracker"),
         new("sweep", "SWEEP.yaml", "Runs a parameter sweep (or one shard of it) in parallel and resumably, or tunes with Nelder-Mead (--tune); writes cases, best settings, heat maps and Pareto plots.",
         [
             ("--out DIR", "sweep folder: new, empty, or this sweep's to resume (default: results/sweep-<name>)"),

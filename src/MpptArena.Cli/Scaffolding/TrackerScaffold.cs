@@ -13,7 +13,15 @@ internal static class TrackerScaffold
     // The versions the arena itself tests with (Directory.Packages.props).
     private const string TestSdkVersion = "18.0.1", XunitVersion = "2.9.3", XunitRunnerVersion = "3.1.5";
 
-    public static IReadOnlyList<string> Write(string name, string folder)
+    /// <summary>Name of the package source the scaffold's nuget.config adds.</summary>
+    private const string FeedKey = "mppt-arena-local";
+
+    /// <summary>
+    /// Writes the project into <paramref name="folder"/>. The tracker references the MpptArena package by
+    /// this tool's version, from <paramref name="feed"/> (a folder or URL that holds it) when given, else
+    /// from a copy of the package that travels with the tool, placed in the project's own packages/.
+    /// </summary>
+    public static IReadOnlyList<string> Write(string name, string folder, string? feed = null)
     {
         if (name.Length == 0 || !char.IsAsciiLetter(name[0]) || name.Any(c => !(char.IsAsciiLetterOrDigit(c) || c is '-' or '_')))
         {
@@ -25,7 +33,17 @@ internal static class TrackerScaffold
         }
         string type = string.Concat(name.Split('-', '_').Where(p => p.Length > 0).Select(p => char.ToUpperInvariant(p[0]) + p[1..]));
         string kind = name.Replace('-', '_').ToLowerInvariant();
-        string arenaReference = ArenaReference();
+        string version = ArenaVersion.Release;
+        string? bundled = feed is null ? BundledPackage(version) : null;
+        if (feed is null && bundled is null)
+        {
+            throw new ArenaInputException(
+                $"this mppt-arena ({AppContext.BaseDirectory}) carries no MpptArena {version} package in feed/ beside it; " +
+                "pass --feed FOLDER-OR-URL where that package is (dotnet pack src/MpptArena -o FOLDER makes one)", "--feed");
+        }
+        string source = feed is null ? "packages" : (Directory.Exists(feed) ? Path.GetFullPath(feed) : feed);
+        string origin = feed is null ? "packages/, copied in by mppt-arena new-tracker" : "--feed";
+        string arenaReference = $"""    <PackageReference Include="MpptArena" Version="{version}" />""";
         var files = new Dictionary<string, string>
         {
             ["Directory.Build.props"] = """
@@ -56,6 +74,20 @@ internal static class TrackerScaffold
                 {arenaReference}
                   </ItemGroup>
                 </Project>
+                """,
+            ["nuget.config"] = $"""
+                <?xml version="1.0" encoding="utf-8"?>
+                <configuration>
+                  <!-- Where the MpptArena package comes from ({origin}); other packages come from the usual sources. -->
+                  <packageSources>
+                    <add key="{FeedKey}" value="{source}" />
+                  </packageSources>
+                  <!-- Packages unpack into this project, not the machine-wide cache: a newer build of the arena
+                       with the same version number cannot be shadowed by a stale cached copy. -->
+                  <config>
+                    <add key="globalPackagesFolder" value=".nuget-packages" />
+                  </config>
+                </configuration>
                 """,
             [$"src/{type}Tracker.cs"] = TrackerSource(type, kind),
             [$"tests/{type}.Tests.csproj"] = $"""
@@ -101,21 +133,21 @@ internal static class TrackerScaffold
             File.WriteAllText(path, text.Replace("\r\n", "\n") + "\n", new UTF8Encoding(false));
             written.Add(path);
         }
+        if (bundled is not null)
+        {
+            string copy = Path.Combine(folder, "packages", Path.GetFileName(bundled));
+            Directory.CreateDirectory(Path.GetDirectoryName(copy)!);
+            File.Copy(bundled, copy);
+            written.Add(copy);
+        }
         return written;
     }
 
-    /// <summary>A project reference to the arena library when run from a source checkout, else a reference to the installed dll.</summary>
-    private static string ArenaReference()
+    /// <summary>The MpptArena package of <paramref name="version"/> in feed/ beside this tool, or null.</summary>
+    private static string? BundledPackage(string version)
     {
-        var dir = new DirectoryInfo(AppContext.BaseDirectory);
-        while (dir is not null)
-        {
-            string csproj = Path.Combine(dir.FullName, "src", "MpptArena", "MpptArena.csproj");
-            if (File.Exists(csproj)) return $"""    <ProjectReference Include="{csproj}" />""";
-            dir = dir.Parent;
-        }
-        string dll = Path.Combine(AppContext.BaseDirectory, "MpptArena.dll");
-        return $"""    <Reference Include="MpptArena"><HintPath>{dll}</HintPath></Reference>""";
+        string path = Path.Combine(AppContext.BaseDirectory, "feed", $"MpptArena.{version}.nupkg");
+        return File.Exists(path) ? path : null;
     }
 
     private static string TrackerSource(string type, string kind) => $$"""
