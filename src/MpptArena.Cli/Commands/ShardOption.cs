@@ -18,15 +18,27 @@ internal static class ShardOption
             int index = Int(k8s, "JOB_COMPLETION_INDEX");
             string count = env("MPPT_ARENA_SHARD_COUNT")
                            ?? throw new ArenaInputException("JOB_COMPLETION_INDEX is set (Kubernetes Indexed Job) but MPPT_ARENA_SHARD_COUNT is not: set it to the Job's completions", "MPPT_ARENA_SHARD_COUNT");
-            return Check(index + 1, Int(count, "MPPT_ARENA_SHARD_COUNT"), "Kubernetes Indexed Job");
+            return Check(index + 1, Int(count, "MPPT_ARENA_SHARD_COUNT"), $"Kubernetes Indexed Job: JOB_COMPLETION_INDEX={k8s}, MPPT_ARENA_SHARD_COUNT={count}");
         }
         if (env("SLURM_ARRAY_TASK_ID") is { } slurm)
         {
             int id = Int(slurm, "SLURM_ARRAY_TASK_ID");
-            int min = env("SLURM_ARRAY_TASK_MIN") is { } m ? Int(m, "SLURM_ARRAY_TASK_MIN") : 0;
-            string count = env("SLURM_ARRAY_TASK_COUNT")
-                           ?? throw new ArenaInputException("SLURM_ARRAY_TASK_ID is set but SLURM_ARRAY_TASK_COUNT is not; pass --shard K/N", "--shard");
-            return Check(id - min + 1, Int(count, "SLURM_ARRAY_TASK_COUNT"), "Slurm job array");
+            string minText = env("SLURM_ARRAY_TASK_MIN") ?? "0";
+            int min = Int(minText, "SLURM_ARRAY_TASK_MIN");
+            string countText = env("SLURM_ARRAY_TASK_COUNT")
+                               ?? throw new ArenaInputException($"SLURM_ARRAY_TASK_ID={slurm} is set but SLURM_ARRAY_TASK_COUNT is not; pass --shard \"$SLURM_ARRAY_TASK_ID/N\" with N the number of shards", "--shard");
+            int count = Int(countText, "SLURM_ARRAY_TASK_COUNT");
+            string seen = $"SLURM_ARRAY_TASK_ID={slurm}, SLURM_ARRAY_TASK_MIN={minText}, SLURM_ARRAY_TASK_COUNT={countText}";
+            string? maxText = env("SLURM_ARRAY_TASK_MAX");
+            // A lone task (a rerun with --array=4) or a sparse array (--array=1,4,9) does not tell the shard
+            // count: the array's own numbers would silently name another sharding.
+            if (count == 1 || (maxText is not null && Int(maxText, "SLURM_ARRAY_TASK_MAX") - min + 1 != count))
+            {
+                throw new ArenaInputException(
+                    $"the Slurm array ({seen}{(maxText is null ? "" : $", SLURM_ARRAY_TASK_MAX={maxText}")}) is not the whole sharding 1..N, so it does not say which shard of how many this task is; " +
+                    $"pass it explicitly: --shard \"$SLURM_ARRAY_TASK_ID/N\" (here {id}/N) with N the shard count of the sweep", "--shard");
+            }
+            return Check(id - min + 1, count, $"Slurm job array: {seen}");
         }
         return (1, 1, "whole sweep");
     }

@@ -31,7 +31,7 @@ internal static class SweepCommand
         var mine = SweepPlanner.Shard(all, shard, count);
         string output = a.Option("--out") ?? Path.Combine("results", count == 1 ? $"sweep-{sweep.Name}" : $"sweep-{sweep.Name}-shard-{shard}-of-{count}");
         string digest = SweepStore.Digest(all);
-        OpenSweepFolder(output, sweep, mine, shard, count, a.Flag("--force"));
+        OpenSweepFolder(output, sweep, mine, shard, count, source, a.Flag("--force"));
         SweepStore.WriteManifest(output, new SweepManifest
         {
             Schema = SweepManifest.SchemaId, Name = sweep.Name, SweepDigest = digest, Inputs = SweepPlanner.Inputs(sweep), TotalCases = all.Count, Shard = shard, ShardCount = count,
@@ -90,7 +90,7 @@ internal static class SweepCommand
     /// folder is started; another sweep's folder or an earlier arena output is replaced only with --force;
     /// anything else is refused before a case runs.
     /// </summary>
-    private static void OpenSweepFolder(string output, SweepDefinition sweep, IReadOnlyList<SweepCase> mine, int shard, int count, bool force)
+    private static void OpenSweepFolder(string output, SweepDefinition sweep, IReadOnlyList<SweepCase> mine, int shard, int count, string source, bool force)
     {
         string full = OutputTarget.FullPath(output);
         var inputs = SweepPlanner.Inputs(sweep);
@@ -110,7 +110,7 @@ internal static class SweepCommand
             }
             if (!force)
             {
-                throw new ArenaInputException($"'{output}' holds another sweep or sharding ({existing.Name}, shard {existing.Shard}/{existing.ShardCount}; this is {sweep.Name}, shard {shard}/{count}); add --force to start this one there, or choose another --out", "--out");
+                throw new ArenaInputException($"'{output}' holds another sweep or sharding ({existing.Name}, shard {existing.Shard}/{existing.ShardCount}; this is {sweep.Name}, shard {shard}/{count} from {source}); add --force to start this one there, or choose another --out", "--out");
             }
             Directory.Delete(full, recursive: true);
         }

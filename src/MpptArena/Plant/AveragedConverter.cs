@@ -220,6 +220,12 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
     public void Step(double dtS, PreparedArrayCurve curve, double command, TrackerCommandKind kind)
     {
         Advance(dtS, curve, command, kind);
+        // A plant that lost its numbers must stop the run, not score NaN energy as a result.
+        if (!double.IsFinite(_v) || !double.IsFinite(_i))
+        {
+            throw new InvalidOperationException(
+                $"the converter model's state became non-finite (PV voltage {_v} V, inductor current {_i} A) after a {dtS * 1e6:G4} us step at command {command}; this is a fault of the arena's integrator, not of the tracker");
+        }
         if (IsDiscontinuous) _discontinuousS += dtS;
     }
 
@@ -401,8 +407,11 @@ public abstract class AveragedConverter(ConverterSettings settings) : IFrontEnd
             // Entered deep DCM within the sub-step (its last stage): integrate it with the stiffness found there.
             if (lambdaEnd * dtS > 1)
             {
+                // At least the last stage's pole: the step's end may itself be back in CCM (rate 0), and ETDRK4
+                // needs a positive rate (its coefficients are 0/0 at zero).
                 double vEnd = next.V, iEnd = Math.Max(next.I, 0.0);
-                next = ExponentialStages(curve, dtS, law, StiffRate(curve, vEnd, iEnd, law, Derivatives(curve, vEnd, iEnd, law)), k1, out _);
+                double rate = Math.Max(lambdaEnd, StiffRate(curve, vEnd, iEnd, law, Derivatives(curve, vEnd, iEnd, law)));
+                next = ExponentialStages(curve, dtS, law, rate, k1, out _);
             }
         }
         // The conduction mode changes within the sub-step: the equations have a kink there (d2 reaches

@@ -201,4 +201,19 @@ public class SweepTests
         Assert.Equal((2, 5), (ShardOption.Resolve("2/5", _ => null).Shard, ShardOption.Resolve("2/5", _ => null).Count));
         Assert.Throws<ArenaInputException>(() => ShardOption.Resolve("6/5", _ => null));
     }
+
+    [Theory]
+    [InlineData("SLURM_ARRAY_TASK_ID=4,SLURM_ARRAY_TASK_MIN=4,SLURM_ARRAY_TASK_MAX=4,SLURM_ARRAY_TASK_COUNT=1")] // sbatch --array=4
+    [InlineData("SLURM_ARRAY_TASK_ID=4,SLURM_ARRAY_TASK_MIN=1,SLURM_ARRAY_TASK_MAX=9,SLURM_ARRAY_TASK_COUNT=3")] // sbatch --array=1,4,9
+    public void ASlurmArrayThatIsNotTheWholeShardingIsRefusedWithWhatItSaw(string variables)
+    {
+        // Slurm exports these for every array task (Slurm sbatch manual, "OUTPUT ENVIRONMENT VARIABLES");
+        // a rerun of one task must not resolve to shard 1/1 and run the whole sweep under another name.
+        var env = variables.Split(',').Select(v => v.Split('=')).ToDictionary(v => v[0], v => v[1]);
+        var e = Assert.Throws<ArenaInputException>(() => ShardOption.Resolve(null, name => env.GetValueOrDefault(name)));
+        Assert.Contains("SLURM_ARRAY_TASK_ID=4", e.Message);
+        Assert.Contains("--shard \"$SLURM_ARRAY_TASK_ID/N\"", e.Message);
+        // The explicit option wins over the variables, as the recipe passes it.
+        Assert.Equal((4, 16), (ShardOption.Resolve("4/16", name => env.GetValueOrDefault(name)).Shard, ShardOption.Resolve("4/16", name => env.GetValueOrDefault(name)).Count));
+    }
 }
