@@ -28,6 +28,7 @@ internal sealed record CommandHelp(string Name, string Arguments, string Summary
             ("--seed N", "seed of the sensor noise (default: the scenario's, else 1)"),
             ("--full-series", "write a series row every plant step (default: every series_interval_ms)"),
             ("--no-plots", "skip the PNG plots"),
+            ("--window START:END", "power and voltage plots show only this part of the run, in seconds (default: all; ':60' and '120:' leave a side open)"),
             ("--junit FILE", "also write the gates as a JUnit report"),
             ("--fail-below [TRACKER:]SCORE=V", "exit 1 when a score is below V (repeatable)"),
             ("--fail-above [TRACKER:]SCORE=V", "exit 1 when a score is above V (repeatable)"),

@@ -1,3 +1,4 @@
+using MpptArena.Reports.Plots;
 using System.Globalization;
 using MpptArena.Cli.Terminal;
 using MpptArena.Reports.Exporters;
@@ -13,11 +14,11 @@ namespace MpptArena.Cli.Commands;
 /// <summary>mppt-arena run SCENARIO.yaml: runs every tracker and writes a results folder.</summary>
 internal static class RunCommand
 {
-    public const string Usage = "mppt-arena run SCENARIO.yaml [--tracker NAME]... [--out DIR] [--force] [--seed N] [--full-series] [--no-plots] [--junit FILE] [--fail-below SCORE=VALUE]... [--fail-above SCORE=VALUE]... [--plugin ASSEMBLY.dll]... [--call-limit-ms MS] [--run-limit-s S] [--memory-limit-mib MIB] [--debug]";
+    public const string Usage = "mppt-arena run SCENARIO.yaml [--tracker NAME]... [--out DIR] [--force] [--seed N] [--full-series] [--no-plots] [--window START:END] [--junit FILE] [--fail-below SCORE=VALUE]... [--fail-above SCORE=VALUE]... [--plugin ASSEMBLY.dll]... [--call-limit-ms MS] [--run-limit-s S] [--memory-limit-mib MIB] [--debug]";
 
     public static int Execute(string[] args)
     {
-        var a = new ArgumentReader(args, "run", ["--tracker", "--out", "--seed", "--junit", "--fail-below", "--fail-above", "--plugin", "--call-limit-ms", "--run-limit-s", "--memory-limit-mib"], ["--full-series", "--no-plots", "--quiet", "--debug", "--force"]);
+        var a = new ArgumentReader(args, "run", ["--tracker", "--out", "--seed", "--window", "--junit", "--fail-below", "--fail-above", "--plugin", "--call-limit-ms", "--run-limit-s", "--memory-limit-mib"], ["--full-series", "--no-plots", "--quiet", "--debug", "--force"]);
         a.RequirePositional(1, Usage);
         var registry = Plugins.Registry(a.Options("--plugin"));
         var scenario = ScenarioLoader.Load(a.Positional[0], registry);
@@ -28,6 +29,7 @@ internal static class RunCommand
         gates.CheckAgainst(scenario.Trackers.Select(t => t.Name).ToList(),
             scenario.Scoring.AllWindows.Select(w => w.Name).Concat(scenario.Scoring.AllWindows.Select(w => w.Group).OfType<string>()).Distinct().ToList());
         if (a.Option("--junit") is { } junitPath) JUnitWriter.CheckTarget(junitPath);
+        var window = a.Option("--window") is { } windowText ? TimeWindow.Parse(windowText, scenario.Simulation.DurationS) : null;
 
         bool chosen = a.Option("--out") is not null;
         string requested = a.Option("--out") ?? Path.Combine("results", ResultsWriter.DefaultFolderName(scenario.Name, DateTime.UtcNow));
@@ -53,7 +55,7 @@ internal static class RunCommand
                 result = Simulate(scenario, sinks, logs.For, a.Flag("--quiet"), interruption.Token);
             }
             logs.Dispose();
-            summary = ResultsWriter.Write(workDir, result, plots: !a.Flag("--no-plots"));
+            summary = ResultsWriter.Write(workDir, result, plots: !a.Flag("--no-plots"), window);
         }
         catch (OperationCanceledException)
         {

@@ -19,7 +19,8 @@ public static class ResultsWriter
     /// <param name="folder">Results folder (exists).</param>
     /// <param name="run">The run.</param>
     /// <param name="plots">Whether to draw PNG plots.</param>
-    public static RunSummary Write(string folder, RunResult run, bool plots = true)
+    /// <param name="window">Part of the run the time-series plots show; null for all of it.</param>
+    public static RunSummary Write(string folder, RunResult run, bool plots = true, TimeWindow? window = null)
     {
         var summary = SummaryBuilder.Build(run);
         File.WriteAllText(Path.Combine(folder, "summary.json"), SummaryJson.Serialize(summary));
@@ -41,7 +42,7 @@ public static class ResultsWriter
                 string file = Path.Combine(folder, SeriesFileName(t.Name));
                 if (File.Exists(file)) series[t.Name] = CsvSeriesSink.Read(file);
             }
-            PlotWriter.WriteAll(folder, run, summary, series);
+            PlotWriter.WriteAll(folder, run, summary, series, window: window);
         }
         return summary;
     }

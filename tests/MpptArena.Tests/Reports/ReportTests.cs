@@ -162,3 +162,38 @@ public class ReportTests
         Assert.Contains("| 1 | ", md);
     }
 }
+
+public class PlotStyleTests
+{
+    [Fact]
+    public void EachTrackerKeepsOneColourThatNoOtherTrackerAndNotTheMppMarkerUses()
+    {
+        // Common practice in plotting: a series keeps its colour across figures, and a highlight colour is
+        // reserved for the highlighted thing.
+        string[] names = ["po", "inc", "vs-inc", "focv", "scan", "cv", "a", "b", "c", "d"];
+        var palette = new MpptArena.Reports.Plots.TrackerPalette(names);
+        var colours = names.Select(n => palette[n]).ToList();
+        Assert.Equal(names.Length, colours.Distinct().Count());
+        Assert.DoesNotContain(MpptArena.Reports.Plots.TrackerPalette.Mpp, colours);
+        Assert.Equal(palette["scan"], new MpptArena.Reports.Plots.TrackerPalette(names)["scan"]);
+    }
+
+    [Theory]
+    [InlineData("100:160", 100, 160)]
+    [InlineData(":60", 0, 60)]
+    [InlineData("3000:", 3000, 3208)]
+    [InlineData("3000:9999", 3000, 3208)]
+    public void APlotWindowIsReadInSecondsWithOpenSides(string text, double start, double end)
+    {
+        var w = MpptArena.Reports.Plots.TimeWindow.Parse(text, 3208);
+        Assert.Equal((start, end), (w.StartS, w.EndS));
+    }
+
+    [Theory]
+    [InlineData("160:100")]
+    [InlineData("5000:")]
+    [InlineData("a:b")]
+    [InlineData("100")]
+    public void ABadPlotWindowIsBadInput(string text) =>
+        Assert.Throws<ArenaInputException>(() => MpptArena.Reports.Plots.TimeWindow.Parse(text, 3208));
+}
