@@ -20,7 +20,9 @@ internal static class RankingTable
         table.AddColumn(new TableColumn("lost Wh").RightAligned());
         table.AddColumn(new TableColumn("start-up s").RightAligned());
         table.AddColumn(new TableColumn("settling s").RightAligned());
+        table.AddColumn(new TableColumn("unsettled").RightAligned());
         table.AddColumn(new TableColumn("ripple V").RightAligned());
+        table.AddColumn(new TableColumn("excursion Wh").RightAligned());
         table.AddColumn(new TableColumn("on global").RightAligned());
         int rank = 1;
         foreach (string name in s.Ranking)
@@ -28,13 +30,13 @@ internal static class RankingTable
             var t = s.Trackers.First(x => x.Name == name);
             if (t.Failed)
             {
-                table.AddRow("-", Markup.Escape(t.Name), "[red]failed[/]", "", "", "", "", Markup.Escape(t.FailureReason ?? ""));
+                table.AddRow("-", Markup.Escape(t.Name), "[red]failed[/]", "", "", "", "", "", "", Markup.Escape(t.FailureReason ?? ""));
                 continue;
             }
             string F(string key, string f) => t.Scores.GetValueOrDefault(key) is { } v ? v.ToString(f, c) : "n/a";
             table.AddRow(rank++.ToString(c), Markup.Escape(t.Name), F("tracking_efficiency", "0.0000"),
                 F("energy_lost_wh", "0.0000"), F("startup_time_s", "0.000"), F("mean_settling_time_s", "0.000"),
-                F("ripple_voltage_pp_v", "0.00"), F("global_peak_time_share", "0.000"));
+                F("events_never_settled", "0"), F("ripple_voltage_pp_v", "0.00"), F("excursion_energy_lost_wh", "0.0000"), F("global_peak_time_share", "0.000"));
         }
         AnsiConsole.Write(table);
     }

@@ -15,8 +15,8 @@ public static class MarkdownReport
         sb.Append("# ").Append(s.Scenario.Name).Append("\n\n");
         if (s.Scenario.Description.Length > 0) sb.Append(s.Scenario.Description.Trim()).Append("\n\n");
         sb.Append(c, $"Simulated {s.Scenario.DurationS:0.###} s at a {s.Scenario.PlantStepS * 1e6:0.##} us plant step, seed {s.Scenario.Seed}, plant {s.Scenario.PlantDigest}, mppt-arena {s.ToolVersion}.\n\n");
-        sb.Append("| rank | tracker | kind | efficiency | static | energy lost (Wh) | start-up (s) | mean settling (s) | never settled | ripple V p-p | on global peak |\n");
-        sb.Append("|---:|---|---|---:|---:|---:|---:|---:|---:|---:|---:|\n");
+        sb.Append("| rank | tracker | kind | efficiency | static | energy lost (Wh) | start-up (s) | mean settling (s) | never settled | ripple V p-p | excursion loss (Wh) | on global peak |\n");
+        sb.Append("|---:|---|---|---:|---:|---:|---:|---:|---:|---:|---:|---:|\n");
         int rank = 1;
         foreach (string name in s.Ranking)
         {
@@ -27,7 +27,7 @@ public static class MarkdownReport
                 continue;
             }
             string F(string key, string format) => t.Scores.GetValueOrDefault(key) is { } v ? v.ToString(format, c) : "n/a";
-            sb.Append(c, $"| {rank++} | {t.Name} | {t.Kind} | {F("tracking_efficiency", "0.0000")} | {F("static_efficiency", "0.0000")} | {F("energy_lost_wh", "0.0000")} | {F("startup_time_s", "0.000")} | {F("mean_settling_time_s", "0.000")} | {F("events_never_settled", "0")} | {F("ripple_voltage_pp_v", "0.00")} | {F("global_peak_time_share", "0.000")} |\n");
+            sb.Append(c, $"| {rank++} | {t.Name} | {t.Kind} | {F("tracking_efficiency", "0.0000")} | {F("static_efficiency", "0.0000")} | {F("energy_lost_wh", "0.0000")} | {F("startup_time_s", "0.000")} | {F("mean_settling_time_s", "0.000")} | {F("events_never_settled", "0")} | {F("ripple_voltage_pp_v", "0.00")} | {F("excursion_energy_lost_wh", "0.0000")} | {F("global_peak_time_share", "0.000")} |\n");
         }
         var dcm = s.Trackers.Where(t => t.DiscontinuousConductionShare is not null).ToList();
         if (dcm.Count > 0)

@@ -7,7 +7,10 @@ namespace MpptArena.Scoring;
 /// <remarks>
 /// Efficiency is the energy ratio of IEC 62891:2020 / EN 50530:2010: the integral of v i dt over the
 /// integral of P_MPP dt, over the same window. Settling: after each event, the time until power enters
-/// a band of +/- band * P_MPP around the MPP power and stays there for the hold time.
+/// a band of +/- band * P_MPP around the MPP power and stays there for the hold time. Once settled, a
+/// sample inside the band counts towards oscillation (ripple), and one outside it, with no event in between,
+/// is an excursion: a deliberate scan or open-circuit sample, or a perturbation larger than the band. Its
+/// loss is reported on its own (excursion_energy_lost_wh), so a scan is not read as volts of ripple.
 /// </remarks>
 public sealed class TrackerScorer
 {
@@ -25,6 +28,7 @@ public sealed class TrackerScorer
 
     private double _spanStartS, _vDevMin, _vDevMax, _pDevMin, _pDevMax, _spanLossJ;
     private double _rippleWeightS, _rippleVSum, _ripplePSum, _rippleLossJ, _rippleTimeS;
+    private double _spanExcursionS, _excursionLossJ, _excursionTimeS;
 
     /// <summary>Label of the start-up event at t = 0; its settling time is the start-up time.</summary>
     public const string StartupLabel = "start-up";
@@ -82,6 +86,13 @@ public sealed class TrackerScorer
         if (_settled)
         {
             double vDev = s.VoltageV - s.MppVoltageV, pDev = s.MppPowerW - s.PowerW;
+            if (!inBand)
+            {
+                _excursionLossJ += pDev * s.DtS;
+                _excursionTimeS += s.DtS;
+                _spanExcursionS += s.DtS;
+                return;
+            }
             _vDevMin = Math.Min(_vDevMin, vDev); _vDevMax = Math.Max(_vDevMax, vDev);
             _pDevMin = Math.Min(_pDevMin, pDev); _pDevMax = Math.Max(_pDevMax, pDev);
             _spanLossJ += pDev * s.DtS;
@@ -104,6 +115,7 @@ public sealed class TrackerScorer
             _vDevMin = _pDevMin = double.PositiveInfinity;
             _vDevMax = _pDevMax = double.NegativeInfinity;
             _spanLossJ = 0;
+            _spanExcursionS = 0;
         }
     }
 
@@ -117,7 +129,7 @@ public sealed class TrackerScorer
     private void CloseRippleSpan(double endS)
     {
         if (!_settled) return;
-        double span = endS - _spanStartS;
+        double span = endS - _spanStartS - _spanExcursionS;
         if (span > 0 && double.IsFinite(_vDevMax))
         {
             _rippleVSum += (_vDevMax - _vDevMin) * span;
@@ -163,6 +175,8 @@ public sealed class TrackerScorer
             MultiPeakTimeS = _multiPeakS,
             GlobalPeakTimeShare = _multiPeakS > 0 ? _onGlobalS / _multiPeakS : null,
             LowerPeakEnergyLostWh = _lowerLossJ / jPerWh,
+            ExcursionEnergyLostWh = _excursionLossJ / jPerWh,
+            ExcursionTimeS = _excursionTimeS,
             Windows = windows,
             Groups = groups,
         };

@@ -42,6 +42,12 @@ public sealed record TrackerScores
     /// <summary>Mean of Pmpp - P while settled [W]: the power lost to oscillation.</summary>
     public required double? RippleMeanLossW { get; init; }
 
+    /// <summary>Energy lost while settled but outside the settling band, with no event in between [Wh]: scans, open-circuit samples, perturbations larger than the band.</summary>
+    public double ExcursionEnergyLostWh { get; init; }
+
+    /// <summary>Time spent on such excursions [s].</summary>
+    public double ExcursionTimeS { get; init; }
+
     /// <summary>Time with more than one peak on the curve [s].</summary>
     public required double MultiPeakTimeS { get; init; }
 

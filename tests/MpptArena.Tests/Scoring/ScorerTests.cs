@@ -66,6 +66,23 @@ public class ScorerTests
     }
 
     [Fact]
+    public void ADeliberateDipOutOfTheBandIsAnExcursionNotRipple()
+    {
+        // Settled at the MPP with +/- 3 V of in-band ripple, then every 2 s a 0.1 s sweep down to half power
+        // and 150 V below the MPP (a scan): the ripple stays 6 V peak-to-peak, and the sweep's energy is the
+        // excursion loss, 0.5 * 1000 W over 0.1 s four times = 200 J. Energy bookkeeping, common practice.
+        var s = Score(t =>
+        {
+            bool sweep = t > 1 && (t % 2.0) < 0.1 - 1e-9;
+            return sweep ? (500, 150) : ((int)(t / 0.02) % 2 == 0 ? (995, 303) : (985, 297));
+        }, 9);
+        Assert.Equal(6.0, s.RippleVoltagePeakToPeakV!.Value, 1e-9);
+        Assert.Equal(4 * 0.1, s.ExcursionTimeS, 1e-9);
+        Assert.Equal(4 * 0.1 * 500 / 3600.0, s.ExcursionEnergyLostWh, 1e-9);
+        Assert.Equal(10.0, s.RippleMeanLossW!.Value, 0.1);
+    }
+
+    [Fact]
     public void NeverSettlingIsAResultNotACrash()
     {
         var s = Score(t => (500, 300), 3, events: (scorer, t) => { if (Math.Abs(t - 1.5) < Dt / 2) scorer.MarkEvent(t, "irradiance change"); });
