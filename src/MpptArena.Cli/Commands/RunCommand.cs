@@ -1,7 +1,7 @@
-using MpptArena.Reports.Plots;
 using System.Globalization;
 using MpptArena.Cli.Terminal;
 using MpptArena.Reports.Exporters;
+using MpptArena.Reports.Plots;
 using MpptArena.Reports.Output;
 using MpptArena.Reports.Summary;
 using MpptArena.Runs;

@@ -12,7 +12,6 @@ internal static class RankingTable
     {
         var c = CultureInfo.InvariantCulture;
         // Logs and CI consoles report a narrow width; the table needs about 90 columns.
-        if (!ConsoleMode.Interactive && AnsiConsole.Profile.Width < 100) AnsiConsole.Profile.Width = 100;
         var table = new Table().Border(TableBorder.Rounded).Title($"[bold]{Markup.Escape(s.Scenario.Name)}[/]");
         table.AddColumn("#");
         table.AddColumn("tracker");

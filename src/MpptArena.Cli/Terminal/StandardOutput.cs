@@ -41,7 +41,8 @@ internal static class StandardOutput
         _error = Console.Error;
         AnsiConsole.Console = AnsiConsole.Create(new AnsiConsoleSettings { Out = new AnsiConsoleOutput(Out) });
         // Piped or in a CI log there is no terminal width; Spectre.Console would assume 80 columns and wrap
-        // table rows mid-line. A log line may be as long as it needs.
+        // table rows mid-line. A log line may be as long as it needs; a CI terminal gets at least 100 columns.
         if (Console.IsOutputRedirected) AnsiConsole.Profile.Width = 400;
+        else if (!ConsoleMode.Interactive && AnsiConsole.Profile.Width < 100) AnsiConsole.Profile.Width = 100;
     }
 }

@@ -15,10 +15,19 @@ internal static class CCompiler
     }
 
     /// <summary>Runs a program and returns its exit code and combined output.</summary>
-    public static (int Exit, string Output) Run(string file, params string[] args)
+    public static (int Exit, string Output) Run(string file, params string[] args) => RunIn(null, file, args);
+
+    /// <summary>
+    /// Runs a program in <paramref name="workingDirectory"/> (null: this process's) and returns its exit code
+    /// and its standard output followed by its standard error (read concurrently, so neither can fill up and block).
+    /// </summary>
+    public static (int Exit, string Output) RunIn(string? workingDirectory, string file, params string[] args)
     {
         var psi = new ProcessStartInfo(file) { RedirectStandardOutput = true, RedirectStandardError = true };
+        if (workingDirectory is not null) psi.WorkingDirectory = workingDirectory;
         foreach (string a in args) psi.ArgumentList.Add(a);
+        psi.Environment["DOTNET_CLI_TELEMETRY_OPTOUT"] = "1";
+        psi.Environment["DOTNET_NOLOGO"] = "1";
         Process p;
         try
         {
@@ -30,9 +39,10 @@ internal static class CCompiler
         }
         using (p)
         {
-            string output = p.StandardOutput.ReadToEnd() + p.StandardError.ReadToEnd();
+            var error = p.StandardError.ReadToEndAsync();
+            string output = p.StandardOutput.ReadToEnd();
             p.WaitForExit();
-            return (p.ExitCode, output);
+            return (p.ExitCode, output + error.Result);
         }
     }
 

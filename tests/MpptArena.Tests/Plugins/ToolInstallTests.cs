@@ -1,4 +1,3 @@
-using System.Diagnostics;
 using System.IO.Compression;
 
 namespace MpptArena.Tests.Plugins;
@@ -60,16 +59,6 @@ public class ToolInstallTests
         }
     }
 
-    private static (int Exit, string Output) Run(string workingDirectory, string file, params string[] args)
-    {
-        var psi = new ProcessStartInfo(file) { WorkingDirectory = workingDirectory, RedirectStandardOutput = true, RedirectStandardError = true };
-        foreach (string a in args) psi.ArgumentList.Add(a);
-        psi.Environment["DOTNET_CLI_TELEMETRY_OPTOUT"] = "1";
-        psi.Environment["DOTNET_NOLOGO"] = "1";
-        using var p = Process.Start(psi)!;
-        var err = p.StandardError.ReadToEndAsync();
-        string output = p.StandardOutput.ReadToEnd();
-        p.WaitForExit();
-        return (p.ExitCode, $"{file} {string.Join(' ', args)}\n{output}{err.Result}");
-    }
+    private static (int Exit, string Output) Run(string workingDirectory, string file, params string[] args) =>
+        CCompiler.RunIn(workingDirectory, file, args);
 }
