@@ -86,6 +86,7 @@ STILL_VALID = {
     ("scenario", "environment.shading[0].moving_shadow.transmittance", "zero"): "an opaque shadow",
     ("scenario", "simulation.seed", "zero"): "0 is a seed",
     ("scenario", "simulation.seed", "delete"): "defaults to 1",
+    ("scenario", "simulation.seeds", "delete"): "one seed by default",
     ("scenario", "simulation.series_interval_ms", "zero"): "0 means every plant step",
     ("scenario", "simulation.series_interval_ms", "delete"): "optional",
     ("scenario", "simulation.duration_s", "delete"): "defaults to the profile's length",
@@ -121,7 +122,7 @@ STILL_VALID = {
 # Keys whose deletion leaves a valid file (optional keys) are found by prefix here, beside STILL_VALID.
 OPTIONAL_PREFIXES = {
     "scenario": ["array.bypass_diode", "scoring.curve_snapshots_s", "scoring.settling_band_fraction", "scoring.settling_hold_s",
-                 "scoring.static_allowance_s", "scoring.windows", "sensors.current.averaging_samples", "sensors.current.averaging_window_us",
+                 "scoring.static_allowance_s", "scoring.stall_fraction", "scoring.windows", "sensors.current.averaging_samples", "sensors.current.averaging_window_us",
                  "sensors.voltage.averaging_samples", "sensors.voltage.averaging_window_us", "converter.input_capacitance_uf", "converter.inductance_mh", "converter.inductor_resistance_ohm",
                  "converter.min_duty", "converter.max_duty", "converter.voltage_loop_bandwidth_hz", "converter.current_loop_bandwidth_hz",
                  "converter.bus_voltage_v", "sensors.voltage.noise_rms_v", "sensors.current.noise_rms_a", "sensors.voltage.averaging",

@@ -27,6 +27,10 @@ internal static class CompareCommand
         foreach (var ch in changes.Where(ch => a.Flag("--all") || ch.Verdict != ScoreVerdict.Unchanged))
         {
             string delta = ch.Delta is { } d ? $" ({(d >= 0 ? "+" : "")}{d.ToString("G4", c)}, allowed {ch.Allowance.ToString("G3", c)})" : "";
+            if (ch.Paired is { ConfidenceLow: { } lo, ConfidenceHigh: { } hi } p)
+            {
+                delta = $" (paired over {p.Count} seeds: {(p.Mean >= 0 ? "+" : "")}{p.Mean.ToString("G4", c)}, 95 % interval [{lo.ToString("G4", c)}, {hi.ToString("G4", c)}], allowed {ch.Allowance.ToString("G3", c)})";
+            }
             string line = ch.Note is { } note ? $"{ch.Tracker}: {note}" : $"{ch.Tracker}.{ch.Score}: {Num(ch.Baseline)} -> {Num(ch.Current)}{delta}";
             StandardOutput.Out.WriteLine($"{ch.Verdict.ToString().ToLowerInvariant(),-10} {line}");
         }
@@ -38,7 +42,16 @@ internal static class CompareCommand
         {
             StandardOutput.Out.WriteLine($"note: the plants differ (digest {baseline.Scenario.PlantDigest} in the baseline, {current.Scenario.PlantDigest} in current); scores are not strictly comparable");
         }
-        if (baseline.Scenario.Seed != current.Scenario.Seed)
+        var baseSeeds = baseline.Scenario.Seeds ?? [baseline.Scenario.Seed];
+        var currentSeeds = current.Scenario.Seeds ?? [current.Scenario.Seed];
+        int common = baseSeeds.Intersect(currentSeeds).Count();
+        if (baseSeeds.Count > 1 || currentSeeds.Count > 1)
+        {
+            StandardOutput.Out.WriteLine(common >= 2
+                ? $"paired by seed: {common} seeds in both; a change counts only when its 95 % interval excludes zero"
+                : $"note: the summaries share {common} seed(s); means over seeds are compared unpaired, without a test for noise");
+        }
+        else if (baseline.Scenario.Seed != current.Scenario.Seed)
         {
             StandardOutput.Out.WriteLine($"note: the seeds differ ({baseline.Scenario.Seed} in the baseline, {current.Scenario.Seed} in current); noise-driven scores may move");
         }
@@ -50,7 +63,8 @@ internal static class CompareCommand
         {
             JUnitWriter.Write(junit, changes.Where(ch => ch.Verdict != ScoreVerdict.New).Select(ch => new JUnitCase(
                 ch.Scenario, $"{ch.Tracker}.{ch.Score}", ch.IsRegression ? ch.Note ?? $"{ch.Verdict}: {Num(ch.Baseline)} -> {Num(ch.Current)}" : null,
-                $"baseline {Num(ch.Baseline)}, current {Num(ch.Current)}, allowed worsening {ch.Allowance.ToString("G3", c)}")));
+                $"baseline {Num(ch.Baseline)}, current {Num(ch.Current)}, allowed worsening {ch.Allowance.ToString("G3", c)}"
+                + (ch.Paired is { ConfidenceLow: { } lo, ConfidenceHigh: { } hi } p ? $", paired over {p.Count} seeds, 95 % interval of the difference [{lo.ToString("G4", c)}, {hi.ToString("G4", c)}]" : ""))));
         }
         return regressions > 0 ? ExitCodes.GateFailed : ExitCodes.Ok;
     }

@@ -14,11 +14,11 @@ namespace MpptArena.Cli.Commands;
 /// <summary>mppt-arena run SCENARIO.yaml: runs every tracker and writes a results folder.</summary>
 internal static class RunCommand
 {
-    public const string Usage = "mppt-arena run SCENARIO.yaml [--tracker NAME]... [--out DIR] [--force] [--seed N] [--full-series] [--no-plots] [--window START:END] [--junit FILE] [--fail-below SCORE=VALUE]... [--fail-above SCORE=VALUE]... [--plugin ASSEMBLY.dll]... [--call-limit-ms MS] [--run-limit-s S] [--memory-limit-mib MIB] [--debug]";
+    public const string Usage = "mppt-arena run SCENARIO.yaml [--tracker NAME]... [--out DIR] [--force] [--seed N] [--seeds N|A,B,...] [--threads N] [--full-series] [--no-plots] [--window START:END] [--junit FILE] [--fail-below SCORE=VALUE]... [--fail-above SCORE=VALUE]... [--plugin ASSEMBLY.dll]... [--call-limit-ms MS] [--run-limit-s S] [--memory-limit-mib MIB] [--debug]";
 
     public static int Execute(string[] args)
     {
-        var a = new ArgumentReader(args, "run", ["--tracker", "--out", "--seed", "--window", "--junit", "--fail-below", "--fail-above", "--plugin", "--call-limit-ms", "--run-limit-s", "--memory-limit-mib"], ["--full-series", "--no-plots", "--quiet", "--debug", "--force"]);
+        var a = new ArgumentReader(args, "run", ["--tracker", "--out", "--seed", "--seeds", "--threads", "--window", "--junit", "--fail-below", "--fail-above", "--plugin", "--call-limit-ms", "--run-limit-s", "--memory-limit-mib"], ["--full-series", "--no-plots", "--quiet", "--debug", "--force"]);
         a.RequirePositional(1, Usage);
         var registry = Plugins.Registry(a.Options("--plugin"));
         var scenario = ScenarioLoader.Load(a.Positional[0], registry);
@@ -36,7 +36,7 @@ internal static class RunCommand
         using var stage = StagedOutput.Begin(requested, "run", a.Flag("--force"), numberIfTaken: !chosen);
         string workDir = stage.StagingPath;
         RunSummary summary;
-        RunResult result;
+        IReadOnlyList<RunResult> results;
         using var interruption = new Interruption();
         var logs = new TrackerLogs(Path.Combine(workDir, "logs"));
         void OnOverrun(string tracker, double limitS)
@@ -52,10 +52,10 @@ internal static class RunCommand
             Func<TrackerSpec, ISeriesSink?> sinks = spec => new CsvSeriesSink(Path.Combine(workDir, ResultsWriter.SeriesFileName(spec.Name)));
             using (logs.DivertConsole(scenario.Trackers.Any(t => t.Descriptor.IsUserCodeInProcess)))
             {
-                result = Simulate(scenario, sinks, logs.For, a.Flag("--quiet"), interruption.Token);
+                results = Simulate(scenario, sinks, logs.For, a.Flag("--quiet"), ThreadsOption(a), interruption.Token);
             }
             logs.Dispose();
-            summary = ResultsWriter.Write(workDir, result, plots: !a.Flag("--no-plots"), window);
+            summary = ResultsWriter.Write(workDir, results, plots: !a.Flag("--no-plots"), window);
         }
         catch (OperationCanceledException)
         {
@@ -80,7 +80,7 @@ internal static class RunCommand
         StandardOutput.Out.WriteLine($"results: {finalDir}");
         if (a.Flag("--debug"))
         {
-            foreach (var t in result.Trackers.Where(t => t.Failure is { Details.Length: > 0 }))
+            foreach (var t in results.SelectMany(r => r.Trackers).Where(t => t.Failure is { Details.Length: > 0 }))
             {
                 StandardOutput.Error.WriteLine($"--- {t.Name}: {t.Failure!.Reason}\n{t.Failure.Details}");
             }
@@ -97,7 +97,12 @@ internal static class RunCommand
         {
             if (!ulong.TryParse(seedText, NumberStyles.None, CultureInfo.InvariantCulture, out ulong seed))
                 throw new ArenaInputException($"--seed '{seedText}' must be a whole number of at least 0", "--seed");
-            s = s with { Simulation = s.Simulation with { Seed = seed } };
+            // One run with that seed, whatever the scenario's seed list; with --seeds COUNT it is the first.
+            s = s with { Simulation = s.Simulation with { Seed = seed, Seeds = null } };
+        }
+        if (a.Option("--seeds") is { } seedsText)
+        {
+            s = s with { Simulation = s.Simulation with { Seeds = SeedSet.ParseOption(seedsText, s.Simulation.Seed) } };
         }
         if (a.Flag("--full-series"))
         {
@@ -115,18 +120,24 @@ internal static class RunCommand
         return s;
     }
 
-    private static RunResult Simulate(Scenario scenario, Func<TrackerSpec, ISeriesSink?> sinks, Func<TrackerSpec, TextWriter?> logs, bool quiet, CancellationToken cancel)
+    /// <summary>--threads: seeds run at once (default: one per core).</summary>
+    public static int ThreadsOption(ArgumentReader a) => a.Option("--threads") is { } t
+        ? (int.TryParse(t, NumberStyles.None, CultureInfo.InvariantCulture, out int n) && n >= 1 ? n : throw new ArenaInputException($"--threads '{t}' must be a whole number of at least 1", "--threads"))
+        : System.Environment.ProcessorCount;
+
+    private static IReadOnlyList<RunResult> Simulate(Scenario scenario, Func<TrackerSpec, ISeriesSink?> sinks, Func<TrackerSpec, TextWriter?> logs, bool quiet, int threads, CancellationToken cancel)
     {
-        var runner = new ScenarioRunner();
-        if (quiet) return runner.Run(scenario, sinks, cancel: cancel, logFor: logs);
-        if (!ConsoleMode.Interactive) return runner.Run(scenario, sinks, new ProgressLines(scenario.Name), cancel, logs);
-        RunResult? result = null;
+        if (quiet) return MultiSeedRunner.Run(scenario, sinks, null, cancel, logs, threads);
+        int seeds = scenario.Simulation.SeedList.Count;
+        string what = seeds > 1 ? $"{scenario.Name} over {seeds} seeds" : scenario.Name;
+        if (!ConsoleMode.Interactive) return MultiSeedRunner.Run(scenario, sinks, new ProgressLines(what), cancel, logs, threads);
+        IReadOnlyList<RunResult>? result = null;
         AnsiConsole.Progress()
             .Columns(new TaskDescriptionColumn(), new ProgressBarColumn(), new PercentageColumn(), new RemainingTimeColumn())
             .Start(ctx =>
             {
-                var task = ctx.AddTask($"{scenario.Name}: {scenario.Trackers.Count} trackers, {scenario.Simulation.DurationS:0.#} s", maxValue: 1.0);
-                result = runner.Run(scenario, sinks, new Progress<double>(f => task.Value = f), cancel, logs);
+                var task = ctx.AddTask($"{what}: {scenario.Trackers.Count} trackers, {scenario.Simulation.DurationS:0.#} s", maxValue: 1.0);
+                result = MultiSeedRunner.Run(scenario, sinks, new Progress<double>(f => task.Value = f), cancel, logs, threads);
                 task.Value = 1.0;
             });
         return result!;

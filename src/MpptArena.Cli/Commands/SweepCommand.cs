@@ -13,14 +13,21 @@ namespace MpptArena.Cli.Commands;
 /// <summary>mppt-arena sweep SWEEP.yaml: runs (a shard of) a parameter sweep in parallel, resumable; or tunes with --tune.</summary>
 internal static class SweepCommand
 {
-    public const string Usage = "mppt-arena sweep SWEEP.yaml [--out DIR] [--force] [--shard K/N] [--threads N] [--tune] [--no-plots] [--plugin DLL]... [--quiet]";
+    public const string Usage = "mppt-arena sweep SWEEP.yaml [--out DIR] [--force] [--shard K/N] [--threads N] [--seeds N|A,B,...] [--tune] [--no-plots] [--plugin DLL]... [--quiet]";
 
     public static int Execute(string[] args)
     {
-        var a = new ArgumentReader(args, "sweep", ["--out", "--shard", "--threads", "--plugin"], ["--tune", "--no-plots", "--quiet", "--force"]);
+        var a = new ArgumentReader(args, "sweep", ["--out", "--shard", "--threads", "--seeds", "--plugin"], ["--tune", "--no-plots", "--quiet", "--force"]);
         a.RequirePositional(1, Usage);
         var sweep = SweepLoader.Load(a.Positional[0], Plugins.Registry(a.Options("--plugin")), ScoreCatalog.All.Select(s => s.Key).ToList());
         foreach (string w in sweep.Scenarios.SelectMany(x => x.Warnings).Distinct()) StandardOutput.Error.WriteLine($"warning: {w}");
+        if (a.Option("--seeds") is { } seedsText)
+        {
+            sweep = sweep with
+            {
+                Scenarios = sweep.Scenarios.Select(x => x with { Simulation = x.Simulation with { Seeds = Runs.SeedSet.ParseOption(seedsText, x.Simulation.Seed) } }).ToList(),
+            };
+        }
         int threads = a.Option("--threads") is { } t
             ? (int.TryParse(t, out int n) && n >= 1 ? n : throw new ArenaInputException($"--threads '{t}' must be a whole number of at least 1", "--threads"))
             : DefaultThreads(sweep);
@@ -169,14 +176,18 @@ internal static class SweepCommand
             var parameters = new Dictionary<string, double>(baseParameters);
             for (int k = 0; k < values.Count; k++) parameters[tune.Parameters[k]] = values[k];
             var sorted = parameters.OrderBy(kv => kv.Key, StringComparer.Ordinal).ToList();
-            var cases = sweep.Scenarios.Select((s, i) => new SweepCase(i, s.Name, tracker.Name, tracker.Descriptor.Kind, period, sorted, SweepPlanner.InputDigestOf(s, tracker))).ToList();
-            var scores = new double[cases.Count];
+            // One case per scenario, or per scenario and seed; a scenario's score is its mean over its seeds.
+            var cases = sweep.Scenarios.SelectMany((_, i) => SweepPlanner.CasesOf(sweep, i, tracker, period, sorted)).ToList();
+            var caseScores = new double[cases.Count];
+            var index = cases.Select((c, k) => (c, k)).ToDictionary(x => x.c.Id, x => x.k);
             SweepExecutor.RunAll(sweep, cases, threads, (c, r) =>
             {
                 var t = r.Trackers.Single();
                 double? v = t.Scores is null ? null : ScoreCatalog.ToDictionary(t.Scores).GetValueOrDefault(tune.Score);
-                scores[c.ScenarioIndex] = v ?? (tune.Maximise ? double.NegativeInfinity : double.PositiveInfinity);
+                caseScores[index[c.Id]] = v ?? (tune.Maximise ? double.NegativeInfinity : double.PositiveInfinity);
             });
+            var scores = cases.Select((c, k) => (c.ScenarioIndex, Score: caseScores[k])).GroupBy(x => x.ScenarioIndex).OrderBy(g => g.Key)
+                .Select(g => g.Average(x => x.Score)).ToArray();
             double aggregate = tune.WorstCase ? (tune.Maximise ? scores.Min() : scores.Max()) : scores.Average();
             evaluation++;
             if (!a.Flag("--quiet"))
@@ -201,7 +212,9 @@ internal static class SweepCommand
         };
         File.WriteAllText(Path.Combine(output, "tune.json"), JsonSerializer.Serialize(doc, new JsonSerializerOptions { WriteIndented = true }) + "\n");
         var md = new StringBuilder($"# Tuning {tracker.Name}\n\n");
-        md.Append(CultureInfo.InvariantCulture, $"{(tune.Maximise ? "Maximised" : "Minimised")} the {(tune.WorstCase ? "worst" : "mean")} `{tune.Score}` over {sweep.Scenarios.Count} scenario(s) with Nelder-Mead (MathNet.Numerics), {history.Count} evaluations.\n\n");
+        int seedCount = sweep.Scenarios.Max(x => x.Simulation.SeedList.Count);
+        string seedText = seedCount > 1 ? $" (each scenario's score the mean over its {seedCount} seeds)" : " (one seed: one draw of the sensor noise; --seeds N averages over N)";
+        md.Append(CultureInfo.InvariantCulture, $"{(tune.Maximise ? "Maximised" : "Minimised")} the {(tune.WorstCase ? "worst" : "mean")} `{tune.Score}` over {sweep.Scenarios.Count} scenario(s){seedText} with Nelder-Mead (MathNet.Numerics), {history.Count} evaluations.\n\n");
         md.Append("| parameter | best | searched from | to |\n|---|---:|---:|---:|\n");
         for (int k = 0; k < best.Count; k++) md.Append(CultureInfo.InvariantCulture, $"| {tune.Parameters[k]} | {best[k]:G6} | {min[k]:G6} | {max[k]:G6} |\n");
         md.Append(CultureInfo.InvariantCulture, $"\nBest {tune.Score}: {bestScore:G6}\n");

@@ -33,10 +33,17 @@ internal static class RankingTable
                 continue;
             }
             string F(string key, string f) => t.Scores.GetValueOrDefault(key) is { } v ? v.ToString(f, c) : "n/a";
-            table.AddRow(rank++.ToString(c), Markup.Escape(t.Name), F("tracking_efficiency", "0.0000"),
+            table.AddRow(rank++.ToString(c), Markup.Escape(t.Name), Markup.Escape(Reports.Exporters.MarkdownReport.Efficiency(t)),
                 F("energy_lost_wh", "0.0000"), F("startup_time_s", "0.000"), F("mean_settling_time_s", "0.000"),
                 F("events_never_settled", "0"), F("ripple_voltage_pp_v", "0.00"), F("excursion_energy_lost_wh", "0.0000"), F("global_peak_time_share", "0.000"));
         }
         AnsiConsole.Write(table);
+        var seeds = s.Scenario.Seeds ?? [s.Scenario.Seed];
+        if (seeds.Count > 1)
+        {
+            StandardOutput.Out.WriteLine($"over {seeds.Count} seeds ({Reports.Exporters.MarkdownReport.SeedRange(seeds)}): means, efficiency +/- the half width of its 95 % confidence interval");
+            string ties = Reports.Exporters.MarkdownReport.Indistinguishable(s);
+            if (ties.Length > 0) StandardOutput.Out.WriteLine($"not distinguishable over these seeds: {ties}");
+        }
     }
 }

@@ -16,6 +16,12 @@ public sealed record ScoreChange(string Scenario, string Tracker, string Score, 
     /// <summary>What happened, in words, where the numbers do not say it (a tracker missing or failed).</summary>
     public string? Note { get; init; }
 
+    /// <summary>
+    /// The seed-by-seed comparison behind the verdict when both summaries hold the score for at least two common
+    /// seeds: the summary of current minus baseline per seed; null when the means were compared.
+    /// </summary>
+    public Statistics.SampleSummary? Paired { get; init; }
+
     /// <summary>True if this change fails a gate.</summary>
     public bool IsRegression => Verdict is ScoreVerdict.Regressed or ScoreVerdict.Missing or ScoreVerdict.Failing;
 }

@@ -1,4 +1,5 @@
 using MpptArena.Reports.Summary;
+using MpptArena.Statistics;
 
 namespace MpptArena.Reports.Comparison;
 
@@ -38,6 +39,13 @@ public static class SummaryComparer
                 var info = ScoreCatalog.Find(key);
                 var direction = info?.Direction ?? ScoreDirection.Neutral;
                 double allowance = bv is { } bb ? tolerances.For(key).AllowanceFor(bb) : 0;
+                if (Paired(b, c, key) is { } paired && direction != ScoreDirection.Neutral)
+                {
+                    double pairedAllowance = tolerances.For(key).AllowanceFor(paired.BaselineMean);
+                    changes.Add(new ScoreChange(scenario, b.Name, key, paired.BaselineMean, paired.BaselineMean + paired.Differences.Mean, pairedAllowance,
+                        JudgePaired(direction, paired.Differences, pairedAllowance)) { Paired = paired.Differences });
+                    continue;
+                }
                 changes.Add(new ScoreChange(scenario, b.Name, key, bv, cv, allowance, Judge(direction, bv, cv, allowance, b.Scores.ContainsKey(key), c.Scores.ContainsKey(key))));
             }
         }
@@ -48,6 +56,35 @@ public static class SummaryComparer
                 : new ScoreChange(scenario, c.Name, "tracker", null, null, 0, ScoreVerdict.New) { Note = "new in current" });
         }
         return changes;
+    }
+
+    /// <summary>
+    /// The seed-by-seed differences of one score over the seeds both summaries ran, when there are at least two
+    /// and the score is defined for every one of them in both; null otherwise (the means are compared instead).
+    /// </summary>
+    private static (double BaselineMean, SampleSummary Differences)? Paired(TrackerSummary b, TrackerSummary c, string key)
+    {
+        if (b.PerSeed is null || c.PerSeed is null) return null;
+        var common = b.PerSeed.Join(c.PerSeed, x => x.Seed, y => y.Seed, (x, y) => (B: x.Scores.GetValueOrDefault(key), C: y.Scores.GetValueOrDefault(key)))
+            .ToList();
+        if (common.Count < 2 || common.Any(p => p.B is null || p.C is null)) return null;
+        var baseline = common.Select(p => p.B!.Value).ToList();
+        return (baseline.Average(), SampleSummary.OfDifferences(baseline, common.Select(p => p.C!.Value).ToList()));
+    }
+
+    /// <summary>
+    /// Paired verdict: worse (or better) only when the mean difference passes the allowance and its 95 %
+    /// confidence interval lies wholly on that side of zero, so the noise of a few seeds cannot fail a gate.
+    /// </summary>
+    private static ScoreVerdict JudgePaired(ScoreDirection direction, SampleSummary d, double allowance)
+    {
+        double sign = direction == ScoreDirection.HigherIsBetter ? 1 : -1;
+        double better = sign * d.Mean;
+        double lo = sign * (sign > 0 ? d.ConfidenceLow!.Value : d.ConfidenceHigh!.Value);
+        double hi = sign * (sign > 0 ? d.ConfidenceHigh!.Value : d.ConfidenceLow!.Value);
+        if (better < -allowance && hi < 0) return ScoreVerdict.Regressed;
+        if (better > allowance && better > 0 && lo > 0) return ScoreVerdict.Improved;
+        return ScoreVerdict.Unchanged;
     }
 
     private static ScoreVerdict Judge(ScoreDirection direction, double? b, double? c, double allowance, bool inBaseline, bool inCurrent)

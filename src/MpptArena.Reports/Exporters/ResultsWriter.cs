@@ -20,18 +20,27 @@ public static class ResultsWriter
     /// <param name="run">The run.</param>
     /// <param name="plots">Whether to draw PNG plots.</param>
     /// <param name="window">Part of the run the time-series plots show; null for all of it.</param>
-    public static RunSummary Write(string folder, RunResult run, bool plots = true, TimeWindow? window = null)
+    public static RunSummary Write(string folder, RunResult run, bool plots = true, TimeWindow? window = null) => Write(folder, [run], plots, window);
+
+    /// <summary>Writes everything but the series for a run over one or more seeds (in seed order); returns the
+    /// summary. Series, curve snapshots and plots of time are of the first seed.</summary>
+    /// <param name="folder">Results folder (exists).</param>
+    /// <param name="runs">One run per seed.</param>
+    /// <param name="plots">Whether to draw PNG plots.</param>
+    /// <param name="window">Part of the run the time-series plots show; null for all of it.</param>
+    public static RunSummary Write(string folder, IReadOnlyList<RunResult> runs, bool plots = true, TimeWindow? window = null)
     {
-        var summary = SummaryBuilder.Build(run);
+        var run = runs[0];
+        var summary = SummaryBuilder.Build(runs);
         File.WriteAllText(Path.Combine(folder, "summary.json"), SummaryJson.Serialize(summary));
         File.WriteAllText(Path.Combine(folder, "summary.md"), MarkdownReport.Render(summary));
         File.WriteAllText(Path.Combine(folder, "pv-curves.json"), CurveSnapshotsJson.Serialize(run.Snapshots));
         var timing = new
         {
             note = "machine dependent; not part of the deterministic summary",
-            wall_time_s = run.WallTimeS,
-            simulated_per_wall = run.WallTimeS > 0 ? run.DurationS * run.Trackers.Count / run.WallTimeS : 0,
-            trackers = run.Trackers.Select(t => new { name = t.Name, mean_compute_ns_per_call = t.MeanComputeNs, calls = t.TrackerCalls }),
+            wall_time_s = runs.Sum(r => r.WallTimeS),
+            simulated_per_wall = runs.Sum(r => r.WallTimeS) > 0 ? runs.Count * run.DurationS * run.Trackers.Count / runs.Sum(r => r.WallTimeS) : 0,
+            trackers = run.Trackers.Select((t, k) => new { name = t.Name, mean_compute_ns_per_call = runs.Average(r => r.Trackers[k].MeanComputeNs), calls = runs.Sum(r => r.Trackers[k].TrackerCalls) }),
         };
         File.WriteAllText(Path.Combine(folder, "timing.json"), JsonSerializer.Serialize(timing, new JsonSerializerOptions { WriteIndented = true }) + "\n");
         if (plots)

@@ -42,6 +42,10 @@ public static class PlotWriter
             }
         }
         files.Add(Save(EfficiencyBars(summary, palette), Path.Combine(folder, "efficiency.png"), width, height));
+        if (summary.Trackers.Any(t => t.EnergySplit is not null))
+        {
+            files.Add(Save(EnergySplitBars(summary), Path.Combine(folder, "energy-split.png"), width, height));
+        }
         if (summary.Trackers.Any(t => t.Windows.Any(w => w.SlopeWm2PerS is not null)))
         {
             files.Add(Save(RampEfficiency(summary, palette), Path.Combine(folder, "ramp-efficiency.png"), width, height));
@@ -142,6 +146,39 @@ public static class PlotWriter
         plot.XLabel("tracker");
         // Differences of a point matter here, so the axis is zoomed; the label says where it starts.
         plot.YLabel(low > 0 ? $"tracking efficiency [%] (axis starts at {low:0} %, not 0)" : "tracking efficiency [%]");
+        return plot;
+    }
+
+    /// <summary>Colours of the energy split's parts, in <see cref="EnergySplitEntry.Parts"/> order (a sequential palette of their own: the parts are not trackers).</summary>
+    private static readonly Color[] SplitColours =
+        [Colors.SteelBlue, Colors.DarkOrange, Colors.SeaGreen, Colors.Crimson, Colors.MediumPurple, Colors.DimGray];
+
+    /// <summary>Lost energy per tracker as a stacked bar of its parts (start-up, after events, steady state, lower hill, excursions, after failure).</summary>
+    public static Plot EnergySplitBars(RunSummary summary)
+    {
+        var plot = new Plot();
+        var trackers = summary.Trackers.Where(t => t.EnergySplit is not null).ToList();
+        var bars = new List<Bar>();
+        for (int i = 0; i < trackers.Count; i++)
+        {
+            double bottom = 0;
+            var parts = trackers[i].EnergySplit!.Parts;
+            for (int k = 0; k < parts.Count; k++)
+            {
+                double top = bottom + Math.Max(parts[k].Wh, 0);
+                bars.Add(new Bar { Position = i, ValueBase = bottom, Value = top, FillColor = SplitColours[k], LineWidth = 0 });
+                bottom = top;
+            }
+        }
+        plot.Add.Bars(bars);
+        var labels = trackers[0].EnergySplit!.Parts;
+        for (int k = 0; k < labels.Count; k++) plot.Legend.ManualItems.Add(new LegendItem { LabelText = labels[k].Label, FillColor = SplitColours[k] });
+        plot.Axes.Bottom.TickGenerator = new ScottPlot.TickGenerators.NumericManual(trackers.Select((t, i) => new Tick(i, t.Failed ? $"{t.Name} (failed)" : t.Name)).ToArray());
+        plot.Axes.SetLimitsY(0, Math.Max(1e-9, trackers.Max(t => t.EnergySplit!.TotalWh)) * 1.08);
+        plot.Title($"Where the energy went, {summary.Scenario.Name}");
+        plot.XLabel("tracker");
+        plot.YLabel("energy lost [Wh] (axis starts at 0)");
+        plot.ShowLegend(Edge.Right);
         return plot;
     }
 

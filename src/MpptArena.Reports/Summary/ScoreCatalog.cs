@@ -28,6 +28,14 @@ public static class ScoreCatalog
         new("multi_peak_time_s", "s", ScoreDirection.Neutral, "Time the P-V curve had more than one maximum", 0, 0),
         new("global_peak_time_share", "-", ScoreDirection.HigherIsBetter, "Share of multi-peak time spent on the global maximum's hill", 0.005, 0),
         new("lower_peak_energy_lost_wh", "Wh", ScoreDirection.LowerIsBetter, "Energy lost while on a lower hill", 1e-4, 0.02),
+        new("lost_startup_wh", "Wh", ScoreDirection.LowerIsBetter, "Energy split: lost from t = 0 until the start-up event settled", 1e-4, 0.02),
+        new("lost_after_events_wh", "Wh", ScoreDirection.LowerIsBetter, "Energy split: lost after irradiance, temperature and shading events until settled", 1e-4, 0.02),
+        new("lost_steady_state_wh", "Wh", ScoreDirection.LowerIsBetter, "Energy split: lost while settled inside the band (oscillation around the MPP)", 1e-4, 0.02),
+        new("lost_lower_hill_wh", "Wh", ScoreDirection.LowerIsBetter, "Energy split: lost while on a lower hill of a multi-peak curve", 1e-4, 0.02),
+        new("lost_excursions_wh", "Wh", ScoreDirection.LowerIsBetter, "Energy split: lost while settled but outside the band (scans, open-circuit samples)", 1e-4, 0.02),
+        new("lost_after_failure_wh", "Wh", ScoreDirection.LowerIsBetter, "Energy split: available after the tracker failed (0 for a tracker that ran to the end)", 1e-4, 0.02),
+        new("stall_time_s", "s", ScoreDirection.LowerIsBetter, "Time the command stayed frozen while the MPP voltage moved by more than the stall fraction", 0.05, 0.05),
+        new("stall_energy_lost_wh", "Wh", ScoreDirection.LowerIsBetter, "Energy lost while stalled", 1e-4, 0.02),
     ];
 
     /// <summary>Information for a key, including window keys; null if unknown.</summary>
@@ -62,6 +70,14 @@ public static class ScoreCatalog
             ["multi_peak_time_s"] = s.MultiPeakTimeS,
             ["global_peak_time_share"] = s.GlobalPeakTimeShare,
             ["lower_peak_energy_lost_wh"] = s.LowerPeakEnergyLostWh,
+            ["lost_startup_wh"] = s.EnergySplit.StartupWh,
+            ["lost_after_events_wh"] = s.EnergySplit.AfterEventsWh,
+            ["lost_steady_state_wh"] = s.EnergySplit.SteadyStateWh,
+            ["lost_lower_hill_wh"] = s.EnergySplit.LowerHillWh,
+            ["lost_excursions_wh"] = s.EnergySplit.ExcursionsWh,
+            ["lost_after_failure_wh"] = s.EnergySplit.AfterFailureWh,
+            ["stall_time_s"] = s.Stall.StallTimeS,
+            ["stall_energy_lost_wh"] = s.Stall.StallEnergyLostWh,
         };
         foreach (var w in s.Windows.Concat(s.Groups)) d[WindowPrefix + w.Name] = w.Efficiency;
         return d;

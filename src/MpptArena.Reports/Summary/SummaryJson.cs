@@ -34,9 +34,9 @@ public static class SummaryJson
                 new SourceLocation(file, (ex.LineNumber ?? 0) + 1, (ex.BytePositionInLine ?? 0) + 1));
         }
         if (summary is null) throw new ArenaInputException("not a valid summary: empty document", null, new SourceLocation(file, 1, 1));
-        if (summary.Schema != RunSummary.SchemaId)
+        if (summary.Schema != RunSummary.SchemaId && summary.Schema != RunSummary.PreviousSchemaId)
         {
-            throw new ArenaInputException($"summary schema '{summary.Schema}' is not supported; expected '{RunSummary.SchemaId}'", "schema", new SourceLocation(file, 1, 1));
+            throw new ArenaInputException($"summary schema '{summary.Schema}' is not supported; expected '{RunSummary.SchemaId}' or '{RunSummary.PreviousSchemaId}'", "schema", new SourceLocation(file, 1, 1));
         }
         if (summary.Trackers is null || summary.Scenario is null) throw new ArenaInputException("not a valid summary: it has no 'scenario' or no 'trackers'", null, new SourceLocation(file, 1, 1));
         var twice = summary.Trackers.GroupBy(t => t.Name).FirstOrDefault(g => g.Count() > 1);

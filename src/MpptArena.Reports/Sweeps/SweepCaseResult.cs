@@ -9,6 +9,10 @@ public sealed record SweepCaseResult
     /// <summary>Scenario name.</summary>
     public required string Scenario { get; init; }
 
+    /// <summary>Seed of the case when its scenario runs over several seeds; absent otherwise.</summary>
+    [System.Text.Json.Serialization.JsonIgnore(Condition = System.Text.Json.Serialization.JsonIgnoreCondition.WhenWritingNull)]
+    public ulong? Seed { get; init; }
+
     /// <summary>Tracker name.</summary>
     public required string Tracker { get; init; }
 

@@ -16,17 +16,40 @@ public static class SweepReport
     /// <summary>One setting of a tracker (period and parameters) across the scenarios of the suite.</summary>
     public sealed record Setting(string Tracker, string Kind, double PeriodMs, SortedDictionary<string, double> Parameters, IReadOnlyList<SweepCaseResult> Cases, string Objective)
     {
-        /// <summary>Mean of the objective over scenarios; failed cases count as undefined and make it null.</summary>
-        public double? Mean => Cases.Any(c => c.Failed || c.Scores.GetValueOrDefault(Objective) is null) ? null : Cases.Average(c => c.Scores[Objective]!.Value);
+        private bool Undefined => Cases.Any(c => c.Failed || c.Scores.GetValueOrDefault(Objective) is null);
 
-        /// <summary>Worst scenario's objective (in the objective's own direction).</summary>
+        /// <summary>The objective per scenario: its value, or over several seeds its mean over them; in scenario name order.</summary>
+        private List<double> PerScenario => Cases.GroupBy(c => c.Scenario).OrderBy(g => g.Key, StringComparer.Ordinal)
+            .Select(g => g.Average(c => c.Scores[Objective]!.Value)).ToList();
+
+        /// <summary>Mean of the objective over scenarios (each scenario's mean over its seeds); failed cases count as undefined and make it null.</summary>
+        public double? Mean => Undefined ? null : PerScenario.Average();
+
+        /// <summary>Worst scenario's objective (in the objective's own direction; over seeds, the scenario's mean).</summary>
         public double? Worst
         {
             get
             {
-                if (Cases.Any(c => c.Failed || c.Scores.GetValueOrDefault(Objective) is null)) return null;
-                var values = Cases.Select(c => c.Scores[Objective]!.Value);
+                if (Undefined) return null;
+                var values = PerScenario;
                 return ScoreCatalog.Find(Objective)?.Direction == ScoreDirection.LowerIsBetter ? values.Max() : values.Min();
+            }
+        }
+
+        /// <summary>
+        /// The objective per seed draw: the k-th value is the mean over the scenarios of each one's k-th seed (in seed
+        /// order), when every scenario ran the same number (at least two) of seeds; null otherwise. Every setting of a
+        /// sweep runs the same seeds, so two settings are compared draw by draw on these.
+        /// </summary>
+        public IReadOnlyList<double>? PerSeed
+        {
+            get
+            {
+                if (Undefined || Cases.Any(c => c.Seed is null)) return null;
+                var byScenario = Cases.GroupBy(c => c.Scenario).Select(g => g.OrderBy(c => c.Seed!.Value).Select(c => c.Scores[Objective]!.Value).ToList()).ToList();
+                int n = byScenario[0].Count;
+                if (n < 2 || byScenario.Any(v => v.Count != n)) return null;
+                return Enumerable.Range(0, n).Select(k => byScenario.Average(v => v[k])).ToList();
             }
         }
 
@@ -49,7 +72,7 @@ public static class SweepReport
     public static List<SweepCaseResult> Sorted(IEnumerable<SweepCaseResult> cases) =>
         cases.OrderBy(c => c.Tracker, StringComparer.Ordinal).ThenBy(c => c.PeriodMs)
             .ThenBy(c => string.Join(",", c.Parameters.Select(p => p.Key + "=" + p.Value.ToString("R", CultureInfo.InvariantCulture))), StringComparer.Ordinal)
-            .ThenBy(c => c.Scenario, StringComparer.Ordinal).ThenBy(c => c.CaseId, StringComparer.Ordinal).ToList();
+            .ThenBy(c => c.Scenario, StringComparer.Ordinal).ThenBy(c => c.Seed ?? 0).ThenBy(c => c.CaseId, StringComparer.Ordinal).ToList();
 
     /// <summary>Settings grouped from cases.</summary>
     public static List<Setting> Settings(IReadOnlyList<SweepCaseResult> sorted, string objective) =>
@@ -94,12 +117,15 @@ public static class SweepReport
         var c = CultureInfo.InvariantCulture;
         var parameterNames = sorted.SelectMany(r => r.Parameters.Keys).Distinct().Order(StringComparer.Ordinal).ToList();
         var scoreNames = ScoreCatalog.All.Select(s => s.Key).Concat(sorted.SelectMany(r => r.Scores.Keys).Where(k => k.StartsWith(ScoreCatalog.WindowPrefix, StringComparison.Ordinal)).Distinct().Order(StringComparer.Ordinal)).ToList();
+        bool seeds = sorted.Any(r => r.Seed is not null);
         var sb = new StringBuilder();
-        sb.Append("case_id,scenario,tracker,kind,period_ms,").Append(string.Concat(parameterNames.Select(p => p + ","))).Append("failed,")
+        sb.Append(seeds ? "case_id,scenario,seed,tracker,kind,period_ms," : "case_id,scenario,tracker,kind,period_ms,").Append(string.Concat(parameterNames.Select(p => p + ","))).Append("failed,")
           .Append(string.Join(",", scoreNames)).Append('\n');
         foreach (var r in sorted)
         {
-            sb.Append(r.CaseId).Append(',').Append(r.Scenario).Append(',').Append(r.Tracker).Append(',').Append(r.Kind).Append(',')
+            sb.Append(r.CaseId).Append(',').Append(r.Scenario).Append(',');
+            if (seeds) sb.Append(r.Seed?.ToString(c) ?? "").Append(',');
+            sb.Append(r.Tracker).Append(',').Append(r.Kind).Append(',')
               .Append(r.PeriodMs.ToString("R", c)).Append(',');
             foreach (string p in parameterNames) sb.Append(r.Parameters.TryGetValue(p, out double v) ? v.ToString("R", c) : "").Append(',');
             sb.Append(r.Failed ? "true" : "false").Append(',');
@@ -114,7 +140,11 @@ public static class SweepReport
         var c = CultureInfo.InvariantCulture;
         bool lower = ScoreCatalog.Find(objective)?.Direction == ScoreDirection.LowerIsBetter;
         var sb = new StringBuilder("# Best settings\n\n");
-        sb.Append($"Objective: `{objective}` ({(lower ? "lower" : "higher")} is better), over {settings.FirstOrDefault()?.Cases.Count ?? 0} scenario(s) per setting. Failed settings are left out.\n");
+        int scenarios = settings.FirstOrDefault()?.Cases.Select(x => x.Scenario).Distinct().Count() ?? 0;
+        int seedCount = settings.FirstOrDefault()?.PerSeed?.Count ?? 1;
+        sb.Append($"Objective: `{objective}` ({(lower ? "lower" : "higher")} is better), over {scenarios} scenario(s) per setting");
+        sb.Append(seedCount > 1 ? $", each the mean over {seedCount} seeds. \"vs first\" compares a setting with the first of its table seed by seed (95 % interval of the paired difference): \"same\" when the seeds cannot tell them apart." : ".");
+        sb.Append(" Failed settings are left out.\n");
         string F(double? v, string f) => v is { } x ? x.ToString(f, c) : "n/a";
         foreach (var group in settings.GroupBy(s => s.Tracker))
         {
@@ -122,9 +152,15 @@ public static class SweepReport
             sb.Append($"\n## {group.Key} ({group.First().Kind}), {group.Count()} settings, {group.Count() - ok.Count} failed\n");
             void Table(string title, IEnumerable<Setting> ranked)
             {
-                sb.Append($"\n### {title}\n\n| # | setting | mean {objective} | worst {objective} | mean settling (s) |\n|---:|---|---:|---:|---:|\n");
+                var top = ranked.Take(5).ToList();
+                bool paired = top.Count > 0 && top.All(x => x.PerSeed is not null);
+                sb.Append($"\n### {title}\n\n| # | setting | mean {objective} | worst {objective} | mean settling (s) |{(paired ? " vs first |" : "")}\n|---:|---|---:|---:|---:|{(paired ? "---|" : "")}\n");
                 int k = 1;
-                foreach (var s in ranked.Take(5)) sb.Append($"| {k++} | {s.Describe()} | {F(s.Mean, "G6")} | {F(s.Worst, "G6")} | {F(s.MeanSettlingS, "0.000")} |\n");
+                foreach (var s in top)
+                {
+                    string versus = !paired ? "" : k == 1 ? " - |" : $" {VersusFirst(top[0], s, lower)} |";
+                    sb.Append($"| {k++} | {s.Describe()} | {F(s.Mean, "G6")} | {F(s.Worst, "G6")} | {F(s.MeanSettlingS, "0.000")} |{versus}\n");
+                }
             }
             Func<Setting, double> by(Func<Setting, double?> f, bool ascending) => s => (ascending ? 1 : -1) * (f(s) ?? (ascending ? double.PositiveInfinity : double.NegativeInfinity));
             Table("By mean over scenarios", ok.OrderBy(by(s => s.Mean, lower)).ThenBy(s => s.Describe(), StringComparer.Ordinal));
@@ -132,6 +168,18 @@ public static class SweepReport
             Table("By mean settling time", ok.OrderBy(by(s => s.MeanSettlingS, true)).ThenBy(s => s.Describe(), StringComparer.Ordinal));
         }
         return sb.ToString();
+    }
+
+    /// <summary>"same" when the seed-by-seed difference of <paramref name="other"/> from <paramref name="first"/> has a 95 % interval that holds zero, else "worse" or "better" with the mean difference.</summary>
+    private static string VersusFirst(Setting first, Setting other, bool lower)
+    {
+        var a = first.PerSeed!;
+        var b = other.PerSeed!;
+        if (a.Count != b.Count) return "n/a";
+        var d = MpptArena.Statistics.SampleSummary.OfDifferences(a, b);
+        string diff = d.Mean.ToString("+0.#####;-0.#####", CultureInfo.InvariantCulture);
+        if (d.IntervalHoldsZero) return $"same ({diff})";
+        return (d.Mean < 0) ^ lower ? $"worse ({diff})" : $"better ({diff})";
     }
 
     private static double AxisValue(Setting s, string axis) => axis == "period_ms" ? s.PeriodMs : s.Parameters.GetValueOrDefault(axis, double.NaN);

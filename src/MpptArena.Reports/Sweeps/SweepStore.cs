@@ -28,6 +28,7 @@ public static class SweepStore
         {
             CaseId = c.Id,
             Scenario = c.ScenarioName,
+            Seed = c.Seed,
             Tracker = c.TrackerName,
             Kind = c.Kind,
             PeriodMs = c.PeriodMs,

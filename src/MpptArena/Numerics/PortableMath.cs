@@ -150,6 +150,35 @@ public static class PortableMath
         return 0.5 * t + 0.5 / t;
     }
 
+    /// <summary>arctan x [rad], within a few units in the last place, from IEEE arithmetic alone.</summary>
+    /// <remarks>Argument reduction by arctan x = pi/2 - arctan(1/x) for x &gt; 1 and arctan x = pi/6 +
+    /// arctan((sqrt(3) x - 1)/(x + sqrt(3))) for x &gt; 2 - sqrt(3), then the Maclaurin series, whose terms
+    /// fall by x^2 &lt; 0.072 each (e.g. Abramowitz and Stegun 1964, eqs. 4.4.42 and 4.4.34).</remarks>
+    public static double Atan(double x)
+    {
+        if (double.IsNaN(x)) return x;
+        if (x < 0) return -Atan(-x);
+        if (double.IsPositiveInfinity(x)) return Math.PI / 2;
+        if (x > 1) return Math.PI / 2 - Atan(1 / x);
+        const double sqrt3 = 1.7320508075688772, tanPiOver12 = 0.2679491924311227;
+        double offset = 0;
+        if (x > tanPiOver12)
+        {
+            x = (sqrt3 * x - 1) / (x + sqrt3);
+            offset = Math.PI / 6;
+        }
+        double x2 = x * x, power = x, sum = 0;
+        for (int k = 0; k < 40; k++)
+        {
+            double term = power / (2 * k + 1);
+            double next = (k & 1) == 0 ? sum + term : sum - term;
+            if (next == sum) break;
+            sum = next;
+            power *= x2;
+        }
+        return offset + sum;
+    }
+
     /// <summary>sin x for |x| up to 2^20 pi/2 (1.6e6 rad); beyond that the platform's function.</summary>
     public static double Sin(double x)
     {

@@ -122,7 +122,11 @@ public sealed class ScenarioRunner
             bool multi = peaks.Peaks.Count > 1;
             foreach (var lane in lanes)
             {
-                if (lane.Failure is not null) continue;
+                if (lane.Failure is not null)
+                {
+                    lane.Scorer.ObserveAfterFailure(h, mpp.PowerW);
+                    continue;
+                }
                 double e0 = lane.FrontEnd.Energy.FromArrayJ;
                 var kind = lane.Tracker.CommandKind;
                 lane.FrontEnd.Step(h, curve, lane.Command, kind);
@@ -138,6 +142,7 @@ public sealed class ScenarioRunner
                 {
                     var (vc, ic, vs, cs, conversions) = lane.Sensors.TakeSample();
                     lane.Sample(new TrackerMeasurement(t, vs, cs, vc, ic, lane.Command, conversions));
+                    if (lane.Failure is null) lane.Scorer.ObserveCommand(t, lane.Command, mpp.VoltageV);
                 }
             }
             if (n % reportEvery == 0)
@@ -156,7 +161,11 @@ public sealed class ScenarioRunner
             double meanNs = lane.TimedCalls > 0 ? lane.ComputeTicks * 1e9 / Stopwatch.Frequency / lane.TimedCalls : 0;
             double dcm = lane.FrontEnd.DiscontinuousTimeS;
             return new TrackerResult(lane.Spec.Name, lane.Spec.Descriptor.Kind, lane.Spec.SamplePeriodS, lane.Spec.Settings.All,
-                lane.Failure is null ? scores : null, lane.Failure, lane.Calls, meanNs, double.IsNaN(dcm) ? null : dcm);
+                lane.Failure is null ? scores : null, lane.Failure, lane.Calls, meanNs, double.IsNaN(dcm) ? null : dcm)
+            {
+                EnergySplit = scores.EnergySplit,
+                Stall = scores.Stall,
+            };
         }).ToList();
         progress?.Report(1.0);
         return new RunResult(scenario.Name, scenario.Description, sim.Seed, PlantDigest(scenario), end, h, results, snapshots,

@@ -22,6 +22,18 @@ public sealed record SimulationSettings(
     /// <summary>True when the scenario set the plant step; false when it is chosen for the trackers' periods (<see cref="WithStepsFor"/>).</summary>
     public bool PlantStepGiven { get; init; } = true;
 
+    /// <summary>
+    /// Seeds to run the scenario with, each one draw of the sensor noise; null for one run with <see cref="Seed"/>.
+    /// Scores over several seeds are reported as their mean, spread and confidence interval.
+    /// </summary>
+    public IReadOnlyList<ulong>? Seeds { get; init; }
+
+    /// <summary>The seeds a run uses: <see cref="Seeds"/>, or <see cref="Seed"/> alone.</summary>
+    public IReadOnlyList<ulong> SeedList => Seeds ?? [Seed];
+
+    /// <summary>True when the scenario is scored over more than one seed.</summary>
+    public bool IsMultiSeed => SeedList.Count > 1;
+
     /// <summary>True when the scenario set the environment step; false when it follows the plant step.</summary>
     public bool EnvironmentStepGiven { get; init; } = true;
 

@@ -21,4 +21,11 @@ public sealed record TrackerResult(
     TrackerFailure? Failure,
     long TrackerCalls,
     double MeanComputeNs,
-    double? DiscontinuousTimeS = null);
+    double? DiscontinuousTimeS = null)
+{
+    /// <summary>Where the lost energy went, for a tracker that failed as well (its loss after the failure is a part).</summary>
+    public EnergySplit? EnergySplit { get; init; }
+
+    /// <summary>Time the command stayed frozen while the MPP moved away, for a tracker that failed as well (until it failed).</summary>
+    public StallRecord? Stall { get; init; }
+}

@@ -114,13 +114,13 @@ public static class ScenarioLoader
         var sources = new List<string> { $"scenario {root.Digest}" };
         var (environment, profiles) = ReadEnvironment(Required(root, "environment", EnvironmentKeys),
             array, file, baseDirectory, windows, sources);
-        var simulationMap = Required(root, "simulation", ["duration_s", "plant_step_us", "environment_step_ms", "seed", "reprepare_irradiance_w_m2", "reprepare_temperature_c", "series_interval_ms"]);
+        var simulationMap = Required(root, "simulation", ["duration_s", "plant_step_us", "environment_step_ms", "seed", "seeds", "reprepare_irradiance_w_m2", "reprepare_temperature_c", "series_interval_ms"]);
         var simulation = ReadSimulation(simulationMap, environment, converter.Kind);
         profiles.CheckCovers(simulation.DurationS);
         var trackers = ReadTrackers(root, registry, simulationMap.Has("plant_step_us") ? simulation : null, baseDirectory, converter);
         simulation = (simulation with { PlantStepGiven = simulationMap.Has("plant_step_us"), EnvironmentStepGiven = simulationMap.Has("environment_step_ms") })
             .WithStepsFor(converter.Kind, trackers.Select(t => t.SamplePeriodS));
-        var scoring = ReadScoring(root.Map("scoring", ["settling_band_fraction", "settling_hold_s", "static_allowance_s", "windows", "curve_snapshots_s"]), windows, simulation);
+        var scoring = ReadScoring(root.Map("scoring", ["settling_band_fraction", "settling_hold_s", "static_allowance_s", "windows", "curve_snapshots_s", "stall_fraction"]), windows, simulation);
         return new Scenario(name, description, array, converter, sensors, environment, simulation, trackers, scoring) { InputDigest = ContentDigest.OfParts(sources), Warnings = warnings };
     }
 
@@ -347,7 +347,36 @@ public static class ScenarioLoader
         string seedText = s.Has("seed") ? s.Scalar(s.Node("seed")!, "seed") : "1";
         if (!ulong.TryParse(seedText, out ulong seed)) throw s.Error(s.Node("seed")!, $"'seed' = '{seedText}' must be a whole number from 0 to 18446744073709551615", "seed");
         return new SimulationSettings(duration, step, env, seed, s.Positive("reprepare_irradiance_w_m2", d.ReprepareIrradianceWm2),
-            s.Positive("reprepare_temperature_c", d.ReprepareTemperatureC), s.Number("series_interval_ms", d.SeriesIntervalS * 1e3, 0, ProfileReader.MaxSegmentS * 1e3) * 1e-3);
+            s.Positive("reprepare_temperature_c", d.ReprepareTemperatureC), s.Number("series_interval_ms", d.SeriesIntervalS * 1e3, 0, ProfileReader.MaxSegmentS * 1e3) * 1e-3)
+        {
+            Seeds = ReadSeeds(s, seed),
+        };
+    }
+
+    /// <summary>
+    /// 'seeds': a count N (the seeds 'seed', 'seed' + 1, ... 'seed' + N - 1) or a list of distinct seeds; null
+    /// when absent, which is one run with 'seed'. A list replaces 'seed', so the two are not given together.
+    /// </summary>
+    private static IReadOnlyList<ulong>? ReadSeeds(YamlMap s, ulong seed)
+    {
+        if (s.Node("seeds") is not { } node) return null;
+        if (node is YamlDotNet.RepresentationModel.YamlSequenceNode list)
+        {
+            if (s.Has("seed")) throw s.Error(node, "give either 'seed' or a list of 'seeds', not both (a count of 'seeds' starts at 'seed')", "seeds");
+            var seeds = new List<ulong>();
+            foreach (var item in list.Children)
+            {
+                string text = s.Scalar(item, "seeds", "a whole number from 0 to 18446744073709551615");
+                if (!ulong.TryParse(text, System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out ulong value))
+                    throw s.Error(item, $"'seeds' entry '{text}' must be a whole number from 0 to 18446744073709551615", "seeds");
+                if (seeds.Contains(value)) throw s.Error(item, $"'seeds' names seed {value} twice; each seed is one draw of the noise and counts once", "seeds");
+                seeds.Add(value);
+            }
+            if (seeds.Count == 0 || seeds.Count > SeedSet.MaxSeeds) throw s.Error(node, $"'seeds' must list 1 to {SeedSet.MaxSeeds} seeds", "seeds");
+            return seeds;
+        }
+        int count = s.Integer("seeds", null, 1, SeedSet.MaxSeeds);
+        return SeedSet.Consecutive(seed, count);
     }
 
     private static IReadOnlyList<TrackerSpec> ReadTrackers(YamlMap root, TrackerRegistry registry, SimulationSettings? givenStep, string baseDirectory, ConverterSettings converter)
@@ -418,6 +447,7 @@ public static class ScenarioLoader
             }
         }
         return new ScoringSettings(s.Number("settling_band_fraction", d.SettlingBandFraction, 0, 1, true), s.Number("settling_hold_s", d.SettlingHoldS, 0, ProfileReader.MaxSegmentS),
-            s.Number("static_allowance_s", d.StaticAllowanceS, 0, ProfileReader.MaxSegmentS), windows, snapshots);
+            s.Number("static_allowance_s", d.StaticAllowanceS, 0, ProfileReader.MaxSegmentS), windows, snapshots,
+            s.Number("stall_fraction", d.StallFraction, 0, 1, true));
     }
 }

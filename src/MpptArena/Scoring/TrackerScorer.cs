@@ -1,3 +1,5 @@
+using MpptArena.Numerics;
+
 namespace MpptArena.Scoring;
 
 /// <summary>
@@ -17,7 +19,8 @@ public sealed class TrackerScorer
     private readonly ScoringSettings _settings;
     private readonly double[] _windowEnergyJ, _windowAvailableJ;
     private readonly List<SettlingScore> _settling = [];
-    private double _energyJ, _availableJ, _staticEnergyJ, _staticAvailableJ;
+    private CompensatedSum _energyJ, _availableJ;
+    private double _staticEnergyJ, _staticAvailableJ;
     private double _multiPeakS, _onGlobalS, _lowerLossJ;
 
     private double _eventS = double.NaN;
@@ -29,6 +32,14 @@ public sealed class TrackerScorer
     private double _spanStartS, _vDevMin, _vDevMax, _pDevMin, _pDevMax, _spanLossJ;
     private double _rippleWeightS, _rippleVSum, _ripplePSum, _rippleLossJ, _rippleTimeS;
     private double _spanExcursionS, _excursionLossJ, _excursionTimeS;
+
+    // Energy split: each step's loss goes to exactly one part (see EnergySplit).
+    private CompensatedSum _lostStartupJ, _lostAfterEventsJ, _lostSteadyJ, _lostLowerHillJ, _lostExcursionsJ, _lostAfterFailureJ;
+
+    // Stall: the command and the MPP voltage when it last changed.
+    private double _heldCommand = double.NaN, _mppVAtCommand, _stallTimeS, _stallLossJ;
+    private bool _stalling;
+    private double? _firstStallS;
 
     /// <summary>Label of the start-up event at t = 0; its settling time is the start-up time.</summary>
     public const string StartupLabel = "start-up";
@@ -53,12 +64,20 @@ public sealed class TrackerScorer
         _settledAfterS = null;
     }
 
+    /// <summary>Takes one plant step after the tracker failed: nothing is taken, everything available is lost.</summary>
+    /// <param name="dtS">Step length [s].</param>
+    /// <param name="mppPowerW">Power at the global MPP [W].</param>
+    public void ObserveAfterFailure(double dtS, double mppPowerW) => _lostAfterFailureJ.Add(mppPowerW * dtS);
+
     /// <summary>Takes one plant step.</summary>
     public void Observe(in PlantSample s)
     {
         double e = s.PowerW * s.DtS, avail = s.MppPowerW * s.DtS;
-        _energyJ += e;
-        _availableJ += avail;
+        double lost = avail - e;
+        BookLoss(s, lost);
+        TrackStall(s, lost);
+        _energyJ.Add(e);
+        _availableJ.Add(avail);
         if (s.StableForS >= _settings.StaticAllowanceS)
         {
             _staticEnergyJ += e;
@@ -119,6 +138,56 @@ public sealed class TrackerScorer
         }
     }
 
+    /// <summary>Books one step's loss to its part of the split, by the precedence of <see cref="EnergySplit"/>; called before the step updates the settling state.</summary>
+    private void BookLoss(in PlantSample s, double lostJ)
+    {
+        if (s.MultiPeak && !s.OnGlobalHill) _lostLowerHillJ.Add(lostJ);
+        else if (!_settled) { if (_eventLabel == StartupLabel) _lostStartupJ.Add(lostJ); else _lostAfterEventsJ.Add(lostJ); }
+        else if (Math.Abs(s.MppPowerW - s.PowerW) <= _settings.SettlingBandFraction * s.MppPowerW || s.MppPowerW <= 0) _lostSteadyJ.Add(lostJ);
+        else _lostExcursionsJ.Add(lostJ);
+    }
+
+    /// <summary>
+    /// Takes the command a tracker returned at a sample instant. A stall begins at a sample that returns the command
+    /// unchanged although the global MPP voltage has moved by more than the stall fraction since the command last
+    /// changed (the tracker was asked after the move and chose not to follow it), and lasts until a sample returns
+    /// another command or finds the MPP back within the fraction. Between samples nobody can follow, so a jump of the
+    /// MPP within one period is not a stall.
+    /// </summary>
+    /// <param name="timeS">Sample instant [s].</param>
+    /// <param name="command">The command returned [V or -].</param>
+    /// <param name="mppVoltageV">Voltage of the global MPP at that instant [V].</param>
+    public void ObserveCommand(double timeS, double command, double mppVoltageV)
+    {
+        if (command != _heldCommand)
+        {
+            _heldCommand = command;
+            _mppVAtCommand = mppVoltageV;
+            _stalling = false;
+            return;
+        }
+        _stalling = _mppVAtCommand > 0 && Math.Abs(mppVoltageV - _mppVAtCommand) > _settings.StallFraction * _mppVAtCommand;
+        if (_stalling) _firstStallS ??= timeS;
+    }
+
+    private void TrackStall(in PlantSample s, double lostJ)
+    {
+        if (!_stalling) return;
+        _stallTimeS += s.DtS;
+        _stallLossJ += lostJ;
+    }
+
+    /// <summary>The energy split so far [Wh]; valid for a tracker that failed as well.</summary>
+    public EnergySplit Split()
+    {
+        const double jPerWh = 3600.0;
+        return new EnergySplit(_lostStartupJ.Value / jPerWh, _lostAfterEventsJ.Value / jPerWh, _lostSteadyJ.Value / jPerWh, _lostLowerHillJ.Value / jPerWh,
+            _lostExcursionsJ.Value / jPerWh, _lostAfterFailureJ.Value / jPerWh);
+    }
+
+    /// <summary>The stall record so far.</summary>
+    public StallRecord Stall() => new(_stallTimeS > 0, Math.Round(_stallTimeS, 9), _firstStallS is { } f ? Math.Round(f, 9) : null, _stallLossJ / 3600.0);
+
     private void CloseEvent()
     {
         if (double.IsNaN(_eventS)) return;
@@ -160,10 +229,10 @@ public sealed class TrackerScorer
         var settled = _settling.Where(s => s.SettlingTimeS is not null).Select(s => s.SettlingTimeS!.Value).ToList();
         return new TrackerScores
         {
-            TrackingEfficiency = Ratio(_energyJ, _availableJ),
+            TrackingEfficiency = Ratio(_energyJ.Value, _availableJ.Value),
             StaticEfficiency = _staticAvailableJ > 0 ? _staticEnergyJ / _staticAvailableJ : null,
-            EnergyWh = _energyJ / jPerWh,
-            AvailableEnergyWh = _availableJ / jPerWh,
+            EnergyWh = _energyJ.Value / jPerWh,
+            AvailableEnergyWh = _availableJ.Value / jPerWh,
             StartupTimeS = _settling.Count > 0 && _settling[0].Label == StartupLabel ? _settling[0].SettlingTimeS : null,
             MeanSettlingTimeS = settled.Count > 0 ? settled.Average() : null,
             WorstSettlingTimeS = settled.Count > 0 ? settled.Max() : null,
@@ -179,6 +248,8 @@ public sealed class TrackerScorer
             ExcursionTimeS = _excursionTimeS,
             Windows = windows,
             Groups = groups,
+            EnergySplit = Split(),
+            Stall = Stall(),
         };
     }
 

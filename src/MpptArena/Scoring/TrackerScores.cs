@@ -57,6 +57,12 @@ public sealed record TrackerScores
     /// <summary>Energy lost while sitting on a lower hill [Wh].</summary>
     public required double LowerPeakEnergyLostWh { get; init; }
 
+    /// <summary>Where the lost energy went; the parts add up to <see cref="EnergyLostWh"/>.</summary>
+    public required EnergySplit EnergySplit { get; init; }
+
+    /// <summary>Time the command stayed frozen while the MPP moved away.</summary>
+    public required StallRecord Stall { get; init; }
+
     /// <summary>Per-window efficiencies.</summary>
     public required IReadOnlyList<WindowScore> Windows { get; init; }
 

@@ -12,11 +12,13 @@ namespace MpptArena.Sweeps;
 /// <param name="PeriodMs">Sample period [ms].</param>
 /// <param name="Parameters">Parameter values, sorted by name.</param>
 /// <param name="InputDigest">Digest of the inputs behind the case: tool build, scenario inputs, tracker code (<see cref="SweepPlanner.InputDigestOf"/>).</param>
-public sealed record SweepCase(int ScenarioIndex, string ScenarioName, string TrackerName, string Kind, double PeriodMs, IReadOnlyList<KeyValuePair<string, double>> Parameters, string InputDigest)
+/// <param name="Seed">The seed of this case when its scenario runs over several seeds (one case per seed); null when it runs over one.</param>
+public sealed record SweepCase(int ScenarioIndex, string ScenarioName, string TrackerName, string Kind, double PeriodMs, IReadOnlyList<KeyValuePair<string, double>> Parameters, string InputDigest,
+    ulong? Seed = null)
 {
     /// <summary>The case's identity as text: scenario, tracker, period and parameters with round-trip numbers, and the inputs' digest.</summary>
     public string Key => string.Create(CultureInfo.InvariantCulture,
-        $"{ScenarioName}|{TrackerName}|{Kind}|period_ms={PeriodMs:R}|{string.Join(",", Parameters.Select(p => $"{p.Key}={p.Value:R}"))}|inputs={InputDigest}");
+        $"{ScenarioName}|{TrackerName}|{Kind}|period_ms={PeriodMs:R}|{string.Join(",", Parameters.Select(p => $"{p.Key}={p.Value:R}"))}|inputs={InputDigest}{(Seed is { } seed ? $"|seed={seed}" : "")}");
 
     /// <summary>The settings part of the key (everything but the scenario), to group a setting across scenarios.</summary>
     public string SettingKey => string.Create(CultureInfo.InvariantCulture,

@@ -17,6 +17,7 @@ public static class SweepExecutor
         var settings = new TrackerSettings(tracker.Descriptor.Parameters, c.Parameters.ToDictionary(kv => kv.Key, kv => kv.Value));
         var spec = new TrackerSpec(c.TrackerName, tracker.Descriptor, settings, c.PeriodMs * 1e-3) { Limits = tracker.Limits };
         var scenario = sweep.Scenarios[c.ScenarioIndex];
+        scenario = Runs.MultiSeedRunner.WithSeed(scenario, c.Seed ?? scenario.Simulation.Seed);
         return scenario with { Trackers = [spec], Simulation = scenario.Simulation.WithStepsFor(scenario.Converter.Kind, [spec.SamplePeriodS]) };
     }
 

@@ -20,10 +20,7 @@ public static class SweepPlanner
                 double period = setting.TryGetValue("period_ms", out double p) ? p : tracker.PeriodMs;
                 var parameters = tracker.Fixed.Concat(setting.Where(kv => kv.Key != "period_ms"))
                     .OrderBy(kv => kv.Key, StringComparer.Ordinal).ToList();
-                for (int s = 0; s < sweep.Scenarios.Count; s++)
-                {
-                    cases.Add(new SweepCase(s, sweep.Scenarios[s].Name, tracker.Name, tracker.Descriptor.Kind, period, parameters, InputDigestOf(sweep.Scenarios[s], tracker)));
-                }
+                for (int s = 0; s < sweep.Scenarios.Count; s++) cases.AddRange(CasesOf(sweep, s, tracker, period, parameters));
             }
         }
         var duplicate = cases.GroupBy(c => c.Id).FirstOrDefault(g => g.Count() > 1);
@@ -32,6 +29,15 @@ public static class SweepPlanner
             throw new ArenaInputException($"the sweep names the same case twice ({duplicate.First().Key}); give trackers distinct names or settings", "trackers");
         }
         return cases;
+    }
+
+    /// <summary>The cases of one setting on one scenario: one, or one per seed when the scenario runs over several.</summary>
+    public static IEnumerable<SweepCase> CasesOf(SweepDefinition sweep, int scenarioIndex, SweepTracker tracker, double periodMs, IReadOnlyList<KeyValuePair<string, double>> parameters)
+    {
+        var scenario = sweep.Scenarios[scenarioIndex];
+        var c = new SweepCase(scenarioIndex, scenario.Name, tracker.Name, tracker.Descriptor.Kind, periodMs, parameters, InputDigestOf(scenario, tracker));
+        if (!scenario.Simulation.IsMultiSeed) return [c];
+        return scenario.Simulation.SeedList.Select(seed => c with { Seed = seed });
     }
 
     /// <summary>Digest of what a case's result depends on besides its settings: the tool build, the scenario's inputs, the tracker's code.</summary>
