@@ -70,6 +70,7 @@ internal static class Program
                 "new-tracker" => NewTrackerCommand.Execute(rest),
                 "sweep" => SweepCommand.Execute(rest),
                 "merge" => MergeCommand.Execute(rest),
+                "procedure" => ProcedureCommand.Execute(rest),
                 "--version" => Version(),
                 _ => throw new ArenaInputException($"unknown command '{args[0]}'; run 'mppt-arena --help' for the list", "command"),
             };

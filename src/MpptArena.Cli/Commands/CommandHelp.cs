@@ -74,6 +74,17 @@ internal sealed record CommandHelp(string Name, string Arguments, string Summary
             ("--plugin DLL", "load tracker kinds from a .NET assembly (repeatable)"),
             ("--quiet", "no progress bar and no table"),
         ], "./run.sh sweep scenarios/sweeps/tuning-demo.yaml --threads 2"),
+        new("procedure", "FILE.yaml", "Runs the MPPT efficiency test procedure on a scenario's converter, sensors and trackers: static efficiency at 5 to 100 % of rated power at the minimum, rated and maximum MPP voltage, the European and CEC weighted efficiencies, the 10-50 % and 30-100 % ramp sequences slope by slope and the start-up and shut-down ramp, on the procedure's crystalline-silicon or thin-film test array or the scenario's own; in parallel and resumable. A pre-compliance estimate, not a certified test.",
+        [
+            ("--tracker NAME", "run only this tracker (repeatable; default: all)"),
+            ("--out DIR", "procedure folder: new, empty, or this procedure's to resume (default: results/procedure-<name>)"),
+            ("--force", "start over in DIR when it holds another result of the arena"),
+            ("--threads N", "points run at once (default: one per core)"),
+            ("--seeds N|A,B,...", "run every point over N seeds, or the listed ones, and report means (default: the file's 'seeds', else one)"),
+            ("--no-plots", "skip the PNG plots"),
+            ("--plugin DLL", "load tracker kinds from a .NET assembly (repeatable)"),
+            ("--quiet", "no progress bar and no report on the console"),
+        ], "./run.sh procedure scenarios/procedure-string-inverter.yaml --tracker po"),
         new("merge", "SHARD_DIR...", "Joins the shards of one sweep, run from the same inputs, into the result a single machine would have written.",
         [
             ("--out DIR", "merged folder, new or empty (required)"),

@@ -97,12 +97,12 @@ internal static class SweepCommand
     /// folder is started; another sweep's folder or an earlier arena output is replaced only with --force;
     /// anything else is refused before a case runs.
     /// </summary>
-    private static void OpenSweepFolder(string output, SweepDefinition sweep, IReadOnlyList<SweepCase> mine, int shard, int count, string source, bool force)
+    internal static void OpenSweepFolder(string output, SweepDefinition sweep, IReadOnlyList<SweepCase> mine, int shard, int count, string source, bool force, string kind = "sweep")
     {
         string full = OutputTarget.FullPath(output);
         var inputs = SweepPlanner.Inputs(sweep);
         var marker = Directory.Exists(full) ? OutputMarker.Read(full) : null;
-        if (marker is { Kind: "sweep" } && marker.FirstForeignEntry(full) is null && File.Exists(Path.Combine(full, "sweep.json")))
+        if (marker is not null && marker.Kind == kind && marker.FirstForeignEntry(full) is null && File.Exists(Path.Combine(full, "sweep.json")))
         {
             var existing = SweepStore.ReadManifest(output);
             if (existing.Name == sweep.Name && existing.Shard == shard && existing.ShardCount == count)
@@ -126,10 +126,10 @@ internal static class SweepCommand
             Directory.Delete(full, recursive: true);
         }
         Directory.CreateDirectory(full);
-        new OutputMarker { Schema = OutputMarker.SchemaId, Kind = "sweep", ToolVersion = SummaryBuilder.ToolVersion, Files = ["sweep.json"], Folders = [SweepStore.CasesFolderName] }.Write(full);
+        new OutputMarker { Schema = OutputMarker.SchemaId, Kind = kind, ToolVersion = SummaryBuilder.ToolVersion, Files = ["sweep.json"], Folders = [SweepStore.CasesFolderName] }.Write(full);
     }
 
-    private static void Run(SweepDefinition sweep, IReadOnlyList<SweepCase> todo, int threads, string output, bool quiet, CancellationToken cancel)
+    internal static void Run(SweepDefinition sweep, IReadOnlyList<SweepCase> todo, int threads, string output, bool quiet, CancellationToken cancel)
     {
         if (todo.Count == 0) return;
         if (quiet || !ConsoleMode.Interactive)

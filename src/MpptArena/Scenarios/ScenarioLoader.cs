@@ -18,7 +18,8 @@ namespace MpptArena.Scenarios;
 /// </summary>
 public static class ScenarioLoader
 {
-    private static readonly string[] TopKeys = ["name", "description", "module", "array", "converter", "sensors", "environment", "simulation", "trackers", "scoring", "plugins"];
+    /// <summary>Keys a scenario file may hold at its top level ('procedure' is read by the procedure command only).</summary>
+    internal static readonly string[] TopKeys = ["name", "description", "module", "array", "converter", "sensors", "environment", "simulation", "trackers", "scoring", "plugins", "procedure"];
     private static readonly string[] PlantKeys = ["name", "description", "module", "array", "conditions"];
     private static readonly string[] EnvironmentKeys = ["irradiance_w_m2", "cell_temperature_c", "ambient_temperature_c", "noct_c", "shading"];
 
