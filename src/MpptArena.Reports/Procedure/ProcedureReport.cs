@@ -189,9 +189,13 @@ public static class ProcedureReport
                 line.LegendText = string.Create(CultureInfo.InvariantCulture, $"{r.Tracker}, {voltages[k]:0.#} V");
             }
         }
-        plot.Title("Static MPPT efficiency against power level, per MPP voltage");
+        var all = results.SelectMany(r => r.Static).Where(x => x.Efficiency is not null).Select(x => x.Efficiency!.Value * 100).DefaultIfEmpty(100).ToList();
+        double low = Math.Max(0, Math.Floor(all.Min() - 1));
+        plot.Axes.SetLimits(0, 102, low, 100.2);
+        plot.Title("Static MPPT efficiency against power level, per MPP voltage (solid: min, dashed: rated, dotted: max voltage)");
         plot.XLabel("power level [% of rated DC power]");
-        plot.YLabel("static MPPT efficiency [%]");
+        // Differences of a fraction of a point matter here, so the axis is zoomed; the label says where it starts.
+        plot.YLabel(low > 0 ? $"static MPPT efficiency [%] (axis starts at {low:0} %, not 0)" : "static MPPT efficiency [%]");
         plot.ShowLegend(Edge.Right);
         return plot;
     }
