@@ -65,4 +65,10 @@ internal sealed class ArgumentReader
     {
         if (_positional.Count != count) throw new ArenaInputException($"usage: {usage}", "arguments");
     }
+
+    /// <summary>--threads N (a whole number of at least 1), or <paramref name="fallback"/> when it is not given.</summary>
+    public int Threads(int fallback) => Option("--threads") is { } t
+        ? (int.TryParse(t, System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out int n) && n >= 1
+            ? n : throw new ArenaInputException($"--threads '{t}' must be a whole number of at least 1", "--threads"))
+        : fallback;
 }

@@ -28,7 +28,7 @@ internal static class ProcedureCommand
         }
         if (names.Count > 0) plant = plant with { Trackers = plant.Trackers.Where(t => names.Contains(t.Name)).ToList() };
         if (a.Option("--seeds") is { } seedsText) plant = plant with { Simulation = plant.Simulation with { Seeds = Runs.SeedSet.ParseOption(seedsText, plant.Simulation.Seed) } };
-        int threads = RunCommand.ThreadsOption(a);
+        int threads = a.Threads(System.Environment.ProcessorCount);
 
         var points = ProcedurePlan.Points(plant, settings);
         var trackers = plant.Trackers.Select(t => new SweepTracker(t.Name, t.Descriptor, t.Settings.All.ToDictionary(kv => kv.Key, kv => kv.Value), [], t.SamplePeriodS * 1e3) { Limits = t.Limits }).ToList();

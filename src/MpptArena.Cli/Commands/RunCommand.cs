@@ -24,6 +24,7 @@ internal static class RunCommand
         var scenario = ScenarioLoader.Load(a.Positional[0], registry);
         scenario = ApplyOptions(scenario, a);
         foreach (string w in scenario.Warnings) StandardOutput.Error.WriteLine($"warning: {w}");
+        int threads = a.Threads(System.Environment.ProcessorCount);
         var gates = Gate.ParseAll(a.Options("--fail-below"), a.Options("--fail-above"));
 
         gates.CheckAgainst(scenario.Trackers.Select(t => t.Name).ToList(),
@@ -52,7 +53,7 @@ internal static class RunCommand
             Func<TrackerSpec, ISeriesSink?> sinks = spec => new CsvSeriesSink(Path.Combine(workDir, ResultsWriter.SeriesFileName(spec.Name)));
             using (logs.DivertConsole(scenario.Trackers.Any(t => t.Descriptor.IsUserCodeInProcess)))
             {
-                results = Simulate(scenario, sinks, logs.For, a.Flag("--quiet"), ThreadsOption(a), interruption.Token);
+                results = Simulate(scenario, sinks, logs.For, a.Flag("--quiet"), threads, interruption.Token);
             }
             logs.Dispose();
             summary = ResultsWriter.Write(workDir, results, plots: !a.Flag("--no-plots"), window);
@@ -119,11 +120,6 @@ internal static class RunCommand
         }
         return s;
     }
-
-    /// <summary>--threads: seeds run at once (default: one per core).</summary>
-    public static int ThreadsOption(ArgumentReader a) => a.Option("--threads") is { } t
-        ? (int.TryParse(t, NumberStyles.None, CultureInfo.InvariantCulture, out int n) && n >= 1 ? n : throw new ArenaInputException($"--threads '{t}' must be a whole number of at least 1", "--threads"))
-        : System.Environment.ProcessorCount;
 
     private static IReadOnlyList<RunResult> Simulate(Scenario scenario, Func<TrackerSpec, ISeriesSink?> sinks, Func<TrackerSpec, TextWriter?> logs, bool quiet, int threads, CancellationToken cancel)
     {

@@ -28,9 +28,7 @@ internal static class SweepCommand
                 Scenarios = sweep.Scenarios.Select(x => x with { Simulation = x.Simulation with { Seeds = Runs.SeedSet.ParseOption(seedsText, x.Simulation.Seed) } }).ToList(),
             };
         }
-        int threads = a.Option("--threads") is { } t
-            ? (int.TryParse(t, out int n) && n >= 1 ? n : throw new ArenaInputException($"--threads '{t}' must be a whole number of at least 1", "--threads"))
-            : DefaultThreads(sweep);
+        int threads = a.Threads(DefaultThreads(sweep));
         if (a.Flag("--tune")) return Tune(sweep, a, threads);
 
         var all = SweepPlanner.Cases(sweep);

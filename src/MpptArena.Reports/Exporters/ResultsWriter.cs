@@ -32,14 +32,15 @@ public static class ResultsWriter
     {
         var run = runs[0];
         var summary = SummaryBuilder.Build(runs);
+        double wallS = runs.Sum(r => r.WallTimeS);
         File.WriteAllText(Path.Combine(folder, "summary.json"), SummaryJson.Serialize(summary));
         File.WriteAllText(Path.Combine(folder, "summary.md"), MarkdownReport.Render(summary));
         File.WriteAllText(Path.Combine(folder, "pv-curves.json"), CurveSnapshotsJson.Serialize(run.Snapshots));
         var timing = new
         {
             note = "machine dependent; not part of the deterministic summary",
-            wall_time_s = runs.Sum(r => r.WallTimeS),
-            simulated_per_wall = runs.Sum(r => r.WallTimeS) > 0 ? runs.Count * run.DurationS * run.Trackers.Count / runs.Sum(r => r.WallTimeS) : 0,
+            wall_time_s = wallS,
+            simulated_per_wall = wallS > 0 ? runs.Count * run.DurationS * run.Trackers.Count / wallS : 0,
             trackers = run.Trackers.Select((t, k) => new { name = t.Name, mean_compute_ns_per_call = runs.Average(r => r.Trackers[k].MeanComputeNs), calls = runs.Sum(r => r.Trackers[k].TrackerCalls) }),
         };
         File.WriteAllText(Path.Combine(folder, "timing.json"), JsonSerializer.Serialize(timing, new JsonSerializerOptions { WriteIndented = true }) + "\n");
